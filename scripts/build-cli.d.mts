@@ -1,0 +1,2 @@
+export const cliOut: string;
+export function buildCli(): Promise<void>;

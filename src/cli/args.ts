@@ -1,0 +1,70 @@
+/** A fault in the command line itself (exit status 2). */
+export class UsageError extends Error {}
+
+export const USAGE = `usage:
+  coilwright solve FILE.json
+  coilwright sweep FILE.json --from HZ --to HZ --points N [--log] [--probe NAME[,NAME...]]
+  coilwright svg SHEET.json
+
+FILE is a graph model (coilwright.graph/1) or a sheet saved by the editor.
+Exit status: 0 solved, 1 the model was refused, 2 the command line is wrong.`;
+
+export interface SolveCommand { command: 'solve' | 'svg'; file: string }
+export interface SweepCommand { command: 'sweep'; file: string; from: number; to: number; points: number; log: boolean; probe?: string[] }
+export type Command = SolveCommand | SweepCommand | { command: 'help' };
+
+function number(flag: string, raw: string | undefined): number {
+  if (raw === undefined) throw new UsageError(`${flag} needs a value`);
+  const v = Number(raw);
+  if (raw.trim() === '' || !Number.isFinite(v)) throw new UsageError(`${flag} must be a number, got "${raw}"`);
+  return v;
+}
+
+export function parseArgs(argv: string[]): Command {
+  const [command, ...rest] = argv;
+  if (command === undefined || command === 'help' || command === '--help' || command === '-h') return { command: 'help' };
+  if (command !== 'solve' && command !== 'sweep' && command !== 'svg') {
+    throw new UsageError(`unknown command "${command}"; use solve, sweep or svg`);
+  }
+  const positional: string[] = [];
+  const flags = new Map<string, string | true>();
+  for (let i = 0; i < rest.length; i++) {
+    const a = rest[i];
+    if (a.startsWith('--')) {
+      const eq = a.indexOf('=');
+      const name = eq > 0 ? a.slice(0, eq) : a;
+      if (flags.has(name)) throw new UsageError(`${name} is given twice`);
+      if (name === '--log') {
+        if (eq > 0) throw new UsageError('--log takes no value');
+        flags.set(name, true);
+      } else if (['--from', '--to', '--points', '--probe'].includes(name) && command === 'sweep') {
+        const value = eq > 0 ? a.slice(eq + 1) : rest[++i];
+        if (value === undefined) throw new UsageError(`${name} needs a value`);
+        flags.set(name, value);
+      } else {
+        throw new UsageError(`unknown option "${name}" for ${command}`);
+      }
+    } else positional.push(a);
+  }
+  if (positional.length === 0) throw new UsageError(`${command} needs a FILE`);
+  if (positional.length > 1) throw new UsageError(`${command} takes one FILE, got ${positional.length}: ${positional.join(' ')}`);
+  const file = positional[0];
+  if (command !== 'sweep') {
+    if (flags.size) throw new UsageError(`${command} takes no options`);
+    return { command, file };
+  }
+  for (const need of ['--from', '--to', '--points']) if (!flags.has(need)) throw new UsageError(`sweep needs ${need}`);
+  const from = number('--from', flags.get('--from') as string);
+  const to = number('--to', flags.get('--to') as string);
+  const points = number('--points', flags.get('--points') as string);
+  const log = flags.has('--log');
+  if (!Number.isInteger(points) || points < 1 || points > 1_000_000) throw new UsageError(`--points must be a whole number from 1 to 1000000, got ${flags.get('--points')}`);
+  if (from < 0 || to < 0) throw new UsageError('--from and --to must be 0 Hz or more');
+  if (log && (from <= 0 || to <= 0)) throw new UsageError('--log needs --from and --to above 0 Hz');
+  let probe: string[] | undefined;
+  if (flags.has('--probe')) {
+    probe = (flags.get('--probe') as string).split(',').map((s) => s.trim());
+    if (probe.some((p) => p === '')) throw new UsageError('--probe needs a comma-separated list of node or element names');
+  }
+  return { command, file, from, to, points, log, probe };
+}

@@ -1,0 +1,133 @@
+import type { GraphModel, InductorEl } from '../model/graph';
+import { ModelRefusal } from './errors';
+
+/** A mutual term between two inductors, signed by their dots: M·d_i·d_j. */
+export interface Mutual {
+  a: number; // element index
+  b: number; // element index
+  /** signed mutual inductance in henries */
+  m: number;
+  /** unsigned mutual inductance */
+  magnitude: number;
+  coupling: string;
+}
+
+/** d = +1 when the winding's dot is on nodes[0], −1 when on nodes[1]. */
+export function dotSign(el: InductorEl): 1 | -1 {
+  return el.dot === 'second' ? -1 : 1;
+}
+
+/**
+ * Mutual terms of all couplings, and the check that the inductance matrix
+ * they make together is positive semidefinite (physically realisable: the
+ * stored energy ½·iᵀLi can never be negative). Checked per group of windings
+ * linked by couplings, on the matrix scaled to unit diagonal (entries are the
+ * coupling coefficients), by a Cholesky factorisation that tolerates the
+ * exactly singular k = 1 case.
+ */
+export function collectMutuals(model: GraphModel): Mutual[] {
+  const index = new Map(model.elements.map((e, i) => [e.id, i]));
+  const mutuals: Mutual[] = [];
+  for (const c of model.couplings ?? []) {
+    const ids = c.windings;
+    for (let i = 0; i < ids.length; i++) {
+      for (let j = i + 1; j < ids.length; j++) {
+        const a = index.get(ids[i])!;
+        const b = index.get(ids[j])!;
+        const ea = model.elements[a] as InductorEl;
+        const eb = model.elements[b] as InductorEl;
+        const magnitude = c.henries !== undefined ? c.henries : c.k! * Math.sqrt(ea.henries * eb.henries);
+        mutuals.push({ a, b, m: magnitude * dotSign(ea) * dotSign(eb), magnitude, coupling: c.id });
+      }
+    }
+  }
+  checkPositiveSemidefinite(model, mutuals);
+  return mutuals;
+}
+
+function checkPositiveSemidefinite(model: GraphModel, mutuals: Mutual[]): void {
+  if (mutuals.length === 0) return;
+  // Group windings linked by couplings.
+  const groups = new Map<number, Set<number>>();
+  const groupOf = new Map<number, number>();
+  let next = 0;
+  for (const mu of mutuals) {
+    const ga = groupOf.get(mu.a);
+    const gb = groupOf.get(mu.b);
+    if (ga === undefined && gb === undefined) {
+      groups.set(next, new Set([mu.a, mu.b]));
+      groupOf.set(mu.a, next).set(mu.b, next);
+      next++;
+    } else if (ga !== undefined && gb === undefined) {
+      groups.get(ga)!.add(mu.b);
+      groupOf.set(mu.b, ga);
+    } else if (ga === undefined && gb !== undefined) {
+      groups.get(gb)!.add(mu.a);
+      groupOf.set(mu.a, gb);
+    } else if (ga !== gb) {
+      for (const w of groups.get(gb!)!) {
+        groups.get(ga!)!.add(w);
+        groupOf.set(w, ga!);
+      }
+      groups.delete(gb!);
+    }
+  }
+  for (const members of groups.values()) {
+    if (members.size < 3) continue; // two windings: k <= 1 was checked per coupling
+    const w = [...members];
+    const pos = new Map(w.map((e, i) => [e, i]));
+    const n = w.length;
+    const a = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) a[i * n + i] = 1;
+    const couplingsInGroup = new Set<string>();
+    for (const mu of mutuals) {
+      const i = pos.get(mu.a);
+      const j = pos.get(mu.b);
+      if (i === undefined || j === undefined) continue;
+      const la = (model.elements[mu.a] as InductorEl).henries;
+      const lb = (model.elements[mu.b] as InductorEl).henries;
+      const kk = mu.m / Math.sqrt(la * lb);
+      a[i * n + j] += kk;
+      a[j * n + i] += kk;
+      couplingsInGroup.add(mu.coupling);
+    }
+    const bad = choleskyFailure(a, n);
+    if (bad >= 0) {
+      const names = w.map((e) => `"${model.elements[e].id}"`).join(', ');
+      const culprits = [...couplingsInGroup];
+      throw new ModelRefusal(
+        `coupling "${culprits[culprits.length - 1]}": the inductance matrix of windings ${names} is not positive semidefinite (no physical set of windings has these couplings; ` +
+          `the stored energy could go negative near winding "${model.elements[w[bad]].id}"); lower one of the coupling coefficients of ${culprits.map((c) => `"${c}"`).join(', ')}`,
+        culprits.map((id) => ({ kind: 'coupling' as const, id })),
+      );
+    }
+  }
+}
+
+/** Index of the first pivot that shows the matrix is not PSD, or −1. */
+function choleskyFailure(a: Float64Array, n: number): number {
+  const tol = 1e-10;
+  const l = new Float64Array(n * n);
+  for (let j = 0; j < n; j++) {
+    let d = a[j * n + j];
+    for (let k = 0; k < j; k++) d -= l[j * n + k] * l[j * n + k];
+    if (d < -tol) return j;
+    if (d <= tol) {
+      // Zero pivot: the rest of this column must vanish too.
+      for (let i = j + 1; i < n; i++) {
+        let s = a[i * n + j];
+        for (let k = 0; k < j; k++) s -= l[i * n + k] * l[j * n + k];
+        if (Math.abs(s) > 1e-7) return j;
+      }
+      continue;
+    }
+    const root = Math.sqrt(d);
+    l[j * n + j] = root;
+    for (let i = j + 1; i < n; i++) {
+      let s = a[i * n + j];
+      for (let k = 0; k < j; k++) s -= l[i * n + k] * l[j * n + k];
+      l[i * n + j] = s / root;
+    }
+  }
+  return -1;
+}

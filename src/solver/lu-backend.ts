@@ -1,0 +1,1 @@
+export { analyze, ComplexSparseLU, type LuSymbolic } from './dense-lu-temp';

@@ -1,0 +1,217 @@
+import {
+  RESULT_SCHEMA,
+  type ComplexJson,
+  type ElementResult,
+  type GraphModel,
+  type SolveResult,
+} from '../model/graph';
+import { ModelRefusal } from './errors';
+import { buildTopology, checkSolvable, type Topology } from './topology';
+import { collectMutuals } from './inductance';
+import { buildMna, type MnaSystem } from './mna';
+import { analyze, ComplexSparseLU, type LuSymbolic } from './lu-backend';
+import { SingularMatrixError } from './sparse/types';
+
+/** Raw solution at one frequency: node voltages and branch currents as typed arrays. */
+export interface RawSolution {
+  frequencyHz: number;
+  /** per node index */
+  vRe: Float64Array;
+  vIm: Float64Array;
+  /** the unknown vector */
+  xRe: Float64Array;
+  xIm: Float64Array;
+}
+
+/**
+ * Owns one circuit structure: topology, MNA pattern and the symbolic analysis
+ * of its sparse LU. Solving at another frequency (a sweep point) only
+ * re-evaluates the matrix values and refactors numerically with the kept
+ * pivot order (the approach of KLU, Davis and Palamadai Natarajan, ACM TOMS 2010).
+ */
+export class SolverSession {
+  readonly model: GraphModel;
+  readonly topo: Topology;
+  readonly mna: MnaSystem;
+  private readonly symbolic: LuSymbolic;
+  private readonly lu: ComplexSparseLU;
+  private readonly re: Float64Array;
+  private readonly im: Float64Array;
+  private checked = new Set<boolean>();
+  private factored = false;
+
+  constructor(model: GraphModel) {
+    this.model = model;
+    this.topo = buildTopology(model);
+    const mutuals = collectMutuals(model);
+    this.mna = buildMna(model, this.topo, mutuals);
+    this.symbolic = analyze(this.mna.pattern);
+    this.lu = new ComplexSparseLU(this.symbolic);
+    this.re = new Float64Array(this.mna.pattern.rowIdx.length);
+    this.im = new Float64Array(this.mna.pattern.rowIdx.length);
+  }
+
+  get warnings(): string[] {
+    return this.topo.warnings;
+  }
+
+  /** Solves at one frequency; throws ModelRefusal naming the culprit when it cannot. */
+  solveRaw(frequencyHz: number): RawSolution {
+    if (!(frequencyHz >= 0) || !Number.isFinite(frequencyHz)) {
+      throw new ModelRefusal(`model: frequency ${frequencyHz} Hz is not a finite number >= 0`, [{ kind: 'model' }]);
+    }
+    const dc = frequencyHz === 0;
+    if (!this.checked.has(dc)) {
+      checkSolvable(this.model, this.topo, frequencyHz);
+      this.checked.add(dc);
+    }
+    const { mna, re, im } = this;
+    const omega = 2 * Math.PI * frequencyHz;
+    const { cRe, cIm, wRe, wIm } = mna;
+    for (let s = 0; s < re.length; s++) {
+      re[s] = cRe[s] + omega * wRe[s];
+      im[s] = cIm[s] + omega * wIm[s];
+    }
+    try {
+      if (this.factored) this.lu.refactor({ re, im });
+      else this.lu.factor({ re, im });
+      this.factored = true;
+    } catch (e) {
+      this.factored = false;
+      if (e instanceof SingularMatrixError) throw this.singularRefusal(e.column, frequencyHz);
+      throw e;
+    }
+    const xRe = mna.rhsRe.slice();
+    const xIm = mna.rhsIm.slice();
+    this.lu.solve(xRe, xIm);
+    const nNodes = this.topo.nodeNames.length;
+    const vRe = new Float64Array(nNodes);
+    const vIm = new Float64Array(nNodes);
+    for (let v = 0; v < nNodes; v++) {
+      const u = mna.nodeUnknown[v];
+      if (u >= 0) {
+        vRe[v] = xRe[u];
+        vIm[v] = xIm[u];
+      }
+    }
+    for (let u = 0; u < xRe.length; u++) {
+      if (!Number.isFinite(xRe[u]) || !Number.isFinite(xIm[u])) {
+        const what = mna.unknownLabel(u);
+        throw new ModelRefusal(
+          `${what.kind} "${what.id}": its ${what.kind === 'node' ? 'voltage' : 'current'} overflows at ${frequencyHz} Hz (the model is at or near a singular point, e.g. an exact resonance of lossless parts); add some resistance or change the frequency`,
+          [what],
+        );
+      }
+    }
+    return { frequencyHz, vRe, vIm, xRe, xIm };
+  }
+
+  solveAt(frequencyHz: number): SolveResult {
+    return this.toResult(this.solveRaw(frequencyHz));
+  }
+
+  private singularRefusal(column: number, frequencyHz: number): ModelRefusal {
+    const what = this.mna.unknownLabel(column);
+    if (what.kind === 'node') {
+      return new ModelRefusal(
+        `node "${what.id}": its voltage is undetermined at ${frequencyHz} Hz (nothing fixes it relative to the rest of the circuit, or an exact resonance of lossless parts shorts or opens it); add a resistor from it to the circuit or change the frequency`,
+        [what],
+      );
+    }
+    const el = this.model.elements.find((e) => e.id === what.id)!;
+    const coupled = (this.model.couplings ?? []).filter((c) => c.windings.includes(what.id));
+    const hint = coupled.length
+      ? `; its windings are tightly coupled (${coupled.map((c) => `"${c.id}"`).join(', ')}), so check that coupled windings are not driven by ideal voltages that contradict each other, or lower k below 1`
+      : '; check for ideal voltages that contradict each other or add a series resistance';
+    return new ModelRefusal(`element "${what.id}" (${el.kind}): its current is undetermined at ${frequencyHz} Hz${hint}`, [what]);
+  }
+
+  /** Builds the spec's result JSON from a raw solution. */
+  toResult(sol: RawSolution, only?: { nodes?: Set<string>; elements?: Set<string> }): SolveResult {
+    const { model, topo, mna } = this;
+    const dc = sol.frequencyHz === 0;
+    const scale = dc || model.amplitudes === 'rms' ? 1 : 0.5;
+    const omega = 2 * Math.PI * sol.frequencyHz;
+    const nodes: Record<string, ComplexJson> = {};
+    topo.nodeNames.forEach((name, v) => {
+      if (!only?.nodes || only.nodes.has(name)) nodes[name] = c(sol.vRe[v], sol.vIm[v]);
+    });
+    const elements: Record<string, ElementResult> = {};
+    model.elements.forEach((el, i) => {
+      if (only?.elements && !only.elements.has(el.id)) return;
+      const nd = topo.elementNodes[i];
+      const vr = sol.vRe[nd[0]] - sol.vRe[nd[1]];
+      const vi = sol.vIm[nd[0]] - sol.vIm[nd[1]];
+      let ir = 0;
+      let ii = 0;
+      const k = mna.branchUnknown[i];
+      switch (el.kind) {
+        case 'resistor':
+          ir = vr / el.ohms;
+          ii = vi / el.ohms;
+          break;
+        case 'capacitor': // I = jωC·V
+          ir = -omega * el.farads * vi;
+          ii = omega * el.farads * vr;
+          break;
+        case 'inductor':
+        case 'voltage-source':
+          ir = sol.xRe[k];
+          ii = sol.xIm[k];
+          break;
+        case 'current-source': {
+          const ph = (el.phaseDeg * Math.PI) / 180;
+          ir = el.magnitude * Math.cos(ph);
+          ii = el.magnitude * Math.sin(ph);
+          break;
+        }
+        case 'ideal-transformer': {
+          const vsr = sol.vRe[nd[2]] - sol.vRe[nd[3]];
+          const vsi = sol.vIm[nd[2]] - sol.vIm[nd[3]];
+          const ipr = sol.xRe[k];
+          const ipi = sol.xIm[k];
+          const isr = -el.ratio * ipr;
+          const isi = -el.ratio * ipi;
+          const watts = scale * (vr * ipr + vi * ipi + vsr * isr + vsi * isi);
+          const vars = scale * (vi * ipr - vr * ipi + vsi * isr - vsr * isi);
+          elements[el.id] = {
+            voltages: [c(vr, vi), c(vsr, vsi)],
+            currents: [c(ipr, ipi), c(isr, isi)],
+            power: { watts: z(watts), vars: z(vars) },
+          };
+          return;
+        }
+      }
+      // S = V·conj(I) (rms or DC), ½·V·conj(I) (peak)
+      elements[el.id] = {
+        voltage: c(vr, vi),
+        current: c(ir, ii),
+        power: { watts: z(scale * (vr * ir + vi * ii)), vars: z(scale * (vi * ir - vr * ii)) },
+      };
+    });
+    return {
+      schema: RESULT_SCHEMA,
+      frequencyHz: sol.frequencyHz,
+      amplitudes: model.amplitudes,
+      nodes,
+      elements,
+      warnings: [...topo.warnings],
+    };
+  }
+}
+
+/** Normalises −0 to 0 so that JSON output never shows "-0". */
+function z(v: number): number {
+  return v === 0 ? 0 : v;
+}
+function c(re: number, im: number): ComplexJson {
+  return { re: z(re), im: z(im) };
+}
+
+export function createSession(model: GraphModel): SolverSession {
+  return new SolverSession(model);
+}
+
+export function solveGraph(model: GraphModel): SolveResult {
+  return new SolverSession(model).solveAt(model.frequencyHz);
+}

@@ -1,0 +1,207 @@
+import { z } from 'zod';
+import { GRAPH_SCHEMA, type GraphModel, type GraphElement, type Coupling } from '../model/graph';
+import { ModelRefusal } from './errors';
+
+/**
+ * Reads an untrusted value as a `coilwright.graph/1` graph model. Structure is
+ * checked with zod; every refusal is one line naming the element, coupling or
+ * field at fault and what to change.
+ */
+
+const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
+const positive = finite.refine((v) => v > 0, { message: 'must be greater than 0' });
+const nonNegative = finite.refine((v) => v >= 0, { message: 'must be 0 or more' });
+const nodeName = z.string().min(1, { message: 'node names must be non-empty strings' });
+const twoNodes = z.tuple([nodeName, nodeName], { message: 'must list exactly two node names' });
+const fourNodes = z.tuple([nodeName, nodeName, nodeName, nodeName], {
+  message: 'must list exactly four node names (primary dotted, primary other, secondary dotted, secondary other)',
+});
+
+const elementSchemas = {
+  resistor: z.object({ nodes: twoNodes, ohms: positive }),
+  inductor: z.object({
+    nodes: twoNodes,
+    henries: positive,
+    dot: z.enum(['first', 'second'], { message: 'must be "first" or "second"' }).optional(),
+  }),
+  capacitor: z.object({ nodes: twoNodes, farads: positive }),
+  'voltage-source': z.object({ nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
+  'current-source': z.object({ nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
+  'ideal-transformer': z.object({ nodes: fourNodes, ratio: positive }),
+} as const;
+
+const KINDS = Object.keys(elementSchemas) as (keyof typeof elementSchemas)[];
+
+const topSchema = z.object({
+  schema: z.literal(GRAPH_SCHEMA, { message: `must be "${GRAPH_SCHEMA}"` }),
+  frequencyHz: nonNegative,
+  amplitudes: z.enum(['rms', 'peak'], { message: 'must be "rms" or "peak"' }),
+  ground: z.string().min(1, { message: 'must name a node' }),
+  elements: z.array(z.unknown(), { message: 'must be an array of elements' }).min(1, { message: 'must hold at least one element' }),
+  couplings: z.array(z.unknown(), { message: 'must be an array of couplings' }).optional(),
+});
+
+const couplingSchema = z.object({
+  windings: z.array(z.string(), { message: 'must be an array of inductor ids' }).min(2, { message: 'must name two or more inductors' }),
+  k: finite.optional(),
+  henries: finite.optional(),
+});
+
+function describe(v: unknown): string {
+  if (v === undefined) return 'nothing';
+  if (v === null) return 'null';
+  if (typeof v === 'string') return JSON.stringify(v.length > 40 ? v.slice(0, 40) + '…' : v);
+  if (typeof v === 'number' || typeof v === 'boolean') return String(v);
+  if (Array.isArray(v)) return 'an array';
+  return 'an object';
+}
+
+function valueAt(obj: unknown, path: PropertyKey[]): unknown {
+  let cur: unknown = obj;
+  for (const key of path) {
+    if (cur === null || typeof cur !== 'object') return undefined;
+    cur = (cur as Record<PropertyKey, unknown>)[key];
+  }
+  return cur;
+}
+
+/** First zod issue as "field must …, got …". */
+function firstIssue(error: z.ZodError, input: unknown): string {
+  const issue = error.issues[0];
+  const path = issue.path.filter((p) => typeof p === 'string' || typeof p === 'number');
+  const field = path.length ? path.map((p) => (typeof p === 'number' ? `[${p}]` : p)).join('.').replace(/\.\[/g, '[') : 'value';
+  const got = valueAt(input, issue.path as PropertyKey[]);
+  let message = issue.message;
+  if (typeof got === 'number' && !Number.isFinite(got)) {
+    return `${field} must be a finite number, got ${got} (a number beyond floating-point range)`;
+  }
+  if (issue.code === 'invalid_type' || message.startsWith('Invalid input')) {
+    message = got === undefined ? 'is missing' : `has the wrong type (${describe(got)})`;
+    return `${field} ${message}`;
+  }
+  return `${field} ${message}, got ${describe(got)}`;
+}
+
+function label(raw: unknown, index: number): string {
+  const id = (raw as { id?: unknown } | null)?.id;
+  return typeof id === 'string' && id.length > 0 ? `element "${id}"` : `element #${index + 1}`;
+}
+
+export function parseGraphModel(input: unknown): GraphModel {
+  if (input === null || typeof input !== 'object' || Array.isArray(input)) {
+    throw new ModelRefusal(`file: expected a JSON object with "schema": "${GRAPH_SCHEMA}", got ${describe(input)}`, [{ kind: 'file' }]);
+  }
+  const schemaField = (input as { schema?: unknown }).schema;
+  if (schemaField !== GRAPH_SCHEMA) {
+    const hint =
+      typeof schemaField === 'string' && schemaField.startsWith('coilwright.graph/')
+        ? ' (a newer version than this tool reads: update Coilwright)'
+        : '';
+    throw new ModelRefusal(`file: "schema" must be "${GRAPH_SCHEMA}", got ${describe(schemaField)}${hint}`, [{ kind: 'file' }]);
+  }
+  const top = topSchema.safeParse(input);
+  if (!top.success) throw new ModelRefusal(`model: ${firstIssue(top.error, input)}`, [{ kind: 'model' }]);
+
+  const elements: GraphElement[] = [];
+  const seen = new Map<string, number>();
+  top.data.elements.forEach((raw, index) => {
+    const name = label(raw, index);
+    if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
+      throw new ModelRefusal(`${name}: expected an object, got ${describe(raw)}`, [{ kind: 'element' }]);
+    }
+    const r = raw as Record<string, unknown>;
+    if (typeof r.id !== 'string' || r.id.length === 0) {
+      throw new ModelRefusal(`${name}: "id" must be a non-empty string, got ${describe(r.id)}`, [{ kind: 'element' }]);
+    }
+    const id = r.id;
+    if (seen.has(id)) {
+      throw new ModelRefusal(`element "${id}": duplicate id (elements #${seen.get(id)! + 1} and #${index + 1}); give each element its own id`, [{ kind: 'element', id }]);
+    }
+    seen.set(id, index);
+    const kind = r.kind;
+    if (typeof kind !== 'string' || !(KINDS as string[]).includes(kind)) {
+      throw new ModelRefusal(`element "${id}": unknown kind ${describe(kind)}; use one of ${KINDS.join(', ')}`, [{ kind: 'element', id }]);
+    }
+    const parsed = elementSchemas[kind as keyof typeof elementSchemas].safeParse(r);
+    if (!parsed.success) {
+      throw new ModelRefusal(`element "${id}" (${kind}): ${firstIssue(parsed.error, r)}`, [{ kind: 'element', id }]);
+    }
+    const nodes = (parsed.data as { nodes: string[] }).nodes;
+    if (kind !== 'ideal-transformer' && nodes[0] === nodes[1]) {
+      throw new ModelRefusal(`element "${id}" (${kind}): both terminals are on node "${nodes[0]}"; connect it between two different nodes or remove it`, [{ kind: 'element', id }]);
+    }
+    if (kind === 'ideal-transformer' && (nodes[0] === nodes[1] || nodes[2] === nodes[3])) {
+      const side = nodes[0] === nodes[1] ? 'primary' : 'secondary';
+      throw new ModelRefusal(`element "${id}" (ideal-transformer): the ${side} winding has both terminals on one node; connect it between two different nodes`, [{ kind: 'element', id }]);
+    }
+    elements.push({ id, kind, ...parsed.data } as GraphElement);
+  });
+
+  const byId = new Map(elements.map((e) => [e.id, e]));
+  const couplings: Coupling[] = [];
+  const pairOwner = new Map<string, string>();
+  (top.data.couplings ?? []).forEach((raw, index) => {
+    const rid = (raw as { id?: unknown } | null)?.id;
+    const name = typeof rid === 'string' && rid.length > 0 ? `coupling "${rid}"` : `coupling #${index + 1}`;
+    if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
+      throw new ModelRefusal(`${name}: expected an object, got ${describe(raw)}`, [{ kind: 'coupling' }]);
+    }
+    if (typeof rid !== 'string' || rid.length === 0) {
+      throw new ModelRefusal(`${name}: "id" must be a non-empty string`, [{ kind: 'coupling' }]);
+    }
+    if (byId.has(rid) || couplings.some((c) => c.id === rid)) {
+      throw new ModelRefusal(`coupling "${rid}": duplicate id; give each element and coupling its own id`, [{ kind: 'coupling', id: rid }]);
+    }
+    const parsed = couplingSchema.safeParse(raw);
+    if (!parsed.success) throw new ModelRefusal(`${name}: ${firstIssue(parsed.error, raw)}`, [{ kind: 'coupling', id: rid }]);
+    const { windings, k, henries } = parsed.data;
+    if ((k === undefined) === (henries === undefined)) {
+      throw new ModelRefusal(`${name}: give either "k" (coupling coefficient) or "henries" (mutual inductance), not ${k === undefined ? 'neither' : 'both'}`, [{ kind: 'coupling', id: rid }]);
+    }
+    for (const w of windings) {
+      const el = byId.get(w);
+      if (!el) throw new ModelRefusal(`${name}: winding "${w}" is not an element of this model; name an inductor's id`, [{ kind: 'coupling', id: rid }]);
+      if (el.kind !== 'inductor') throw new ModelRefusal(`${name}: "${w}" is a ${el.kind}, not an inductor; only inductors can be coupled`, [{ kind: 'coupling', id: rid }, { kind: 'element', id: w }]);
+    }
+    if (new Set(windings).size !== windings.length) {
+      throw new ModelRefusal(`${name}: names a winding more than once; list each inductor once`, [{ kind: 'coupling', id: rid }]);
+    }
+    if (k !== undefined && (k < 0 || k > 1)) {
+      throw new ModelRefusal(`${name}: k = ${k} is out of range; the coupling coefficient must be between 0 and 1`, [{ kind: 'coupling', id: rid }]);
+    }
+    if (henries !== undefined) {
+      if (windings.length !== 2) {
+        throw new ModelRefusal(`${name}: "henries" couples exactly two windings, got ${windings.length}; use "k" for three or more`, [{ kind: 'coupling', id: rid }]);
+      }
+      const [l1, l2] = windings.map((w) => (byId.get(w) as { henries: number }).henries);
+      const mMax = Math.sqrt(l1 * l2);
+      if (henries < 0 || henries > mMax * (1 + 1e-12)) {
+        throw new ModelRefusal(`${name}: M = ${henries} H is out of range; it must be between 0 and sqrt(L1·L2) = ${fmt(mMax)} H (k = ${fmt(henries / mMax)} > 1)`, [{ kind: 'coupling', id: rid }]);
+      }
+    }
+    for (let i = 0; i < windings.length; i++) {
+      for (let j = i + 1; j < windings.length; j++) {
+        const key = [windings[i], windings[j]].sort().join('\u0000');
+        const owner = pairOwner.get(key);
+        if (owner) {
+          throw new ModelRefusal(`${name}: windings "${windings[i]}" and "${windings[j]}" are already coupled by "${owner}"; couple each pair once`, [{ kind: 'coupling', id: rid }]);
+        }
+        pairOwner.set(key, rid);
+      }
+    }
+    couplings.push(k !== undefined ? { id: rid, windings: [...windings], k } : { id: rid, windings: [...windings], henries });
+  });
+
+  return {
+    schema: GRAPH_SCHEMA,
+    frequencyHz: top.data.frequencyHz,
+    amplitudes: top.data.amplitudes,
+    ground: top.data.ground,
+    elements,
+    couplings,
+  };
+}
+
+export function fmt(v: number): string {
+  return Number(v.toPrecision(4)).toString();
+}
