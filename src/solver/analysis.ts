@@ -193,7 +193,7 @@ export function reflectedImpedances(model: GraphModel, windingId: string, freque
         coupling: c.id,
         mutualHenries: m,
         loopImpedance: open ? null : cdiv({ re: 1, im: 0 }, yLoop),
-        reflected: { re: wm2 * yLoop.re, im: wm2 * yLoop.im },
+        reflected: { re: wm2 * yLoop.re + 0, im: wm2 * yLoop.im + 0 }, // + 0 turns −0 into 0
       });
     }
   }
