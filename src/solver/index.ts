@@ -3,3 +3,6 @@ export { ModelRefusal } from './errors';
 export { SolverSession, createSession, solveGraph, type RawSolution } from './session';
 export { sweepGraph, frequencyGrid, ProbeError } from './sweep';
 export * from './analysis';
+export { pairState, connectionOf, mutualOf, type PairState, type Connection } from './coupling-state';
+export { compareDotFlip, diffResults, flipDot, type Change, type DotComparison } from './compare';
+export { powerSummary, efficiency, type PowerRow, type PowerSummary } from './power';

@@ -72,7 +72,13 @@ function checkPositiveSemidefinite(model: GraphModel, mutuals: Mutual[]): void {
       groups.delete(gb!);
     }
   }
-  for (const members of groups.values()) {
+  const mutualsOf = new Map<number, Mutual[]>();
+  for (const mu of mutuals) {
+    const g = groupOf.get(mu.a)!;
+    if (!mutualsOf.has(g)) mutualsOf.set(g, []);
+    mutualsOf.get(g)!.push(mu);
+  }
+  for (const [g, members] of groups) {
     if (members.size < 3) continue; // two windings: k <= 1 was checked per coupling
     const w = [...members];
     const pos = new Map(w.map((e, i) => [e, i]));
@@ -80,10 +86,9 @@ function checkPositiveSemidefinite(model: GraphModel, mutuals: Mutual[]): void {
     const a = new Float64Array(n * n);
     for (let i = 0; i < n; i++) a[i * n + i] = 1;
     const couplingsInGroup = new Set<string>();
-    for (const mu of mutuals) {
-      const i = pos.get(mu.a);
-      const j = pos.get(mu.b);
-      if (i === undefined || j === undefined) continue;
+    for (const mu of mutualsOf.get(g)!) {
+      const i = pos.get(mu.a)!;
+      const j = pos.get(mu.b)!;
       const la = (model.elements[mu.a] as InductorEl).henries;
       const lb = (model.elements[mu.b] as InductorEl).henries;
       const kk = mu.m / Math.sqrt(la * lb);
@@ -91,6 +96,7 @@ function checkPositiveSemidefinite(model: GraphModel, mutuals: Mutual[]): void {
       a[j * n + i] += kk;
       couplingsInGroup.add(mu.coupling);
     }
+    if (diagonallyDominant(a, n)) continue; // Gershgorin: every eigenvalue >= 0
     const bad = choleskyFailure(a, n);
     if (bad >= 0) {
       const names = w.map((e) => `"${model.elements[e].id}"`).join(', ');
@@ -102,6 +108,15 @@ function checkPositiveSemidefinite(model: GraphModel, mutuals: Mutual[]): void {
       );
     }
   }
+}
+
+function diagonallyDominant(a: Float64Array, n: number): boolean {
+  for (let i = 0; i < n; i++) {
+    let off = 0;
+    for (let j = 0; j < n; j++) if (j !== i) off += Math.abs(a[i * n + j]);
+    if (off > a[i * n + i]) return false;
+  }
+  return true;
 }
 
 /** Index of the first pivot that shows the matrix is not PSD, or −1. */

@@ -110,21 +110,23 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): 
   };
 
   model.elements.forEach((el, i) => {
-    const nodes = topo.elementNodes[i];
+    const o = 4 * i;
+    const n0 = topo.terminals[o];
+    const n1 = topo.terminals[o + 1];
     const k = branchUnknown[i];
     switch (el.kind) {
       case 'resistor':
-        admittance(nodes[0], nodes[1], 1 / el.ohms, 0);
+        admittance(n0, n1, 1 / el.ohms, 0);
         break;
       case 'capacitor':
-        admittance(nodes[0], nodes[1], 0, el.farads);
+        admittance(n0, n1, 0, el.farads);
         break;
       case 'inductor':
-        branch(k, nodes[0], nodes[1], 1);
+        branch(k, n0, n1, 1);
         st.add(k, k, 0, 0, 0, -el.henries); // V_a − V_b − jωL·I = 0
         break;
       case 'voltage-source': {
-        branch(k, nodes[0], nodes[1], 1);
+        branch(k, n0, n1, 1);
         const ph = (el.phaseDeg * Math.PI) / 180;
         rhsRe[k] = el.magnitude * Math.cos(ph);
         rhsIm[k] = el.magnitude * Math.sin(ph);
@@ -134,8 +136,8 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): 
         const ph = (el.phaseDeg * Math.PI) / 180;
         const re = el.magnitude * Math.cos(ph);
         const im = el.magnitude * Math.sin(ph);
-        const ua = nodeUnknown[nodes[0]];
-        const ub = nodeUnknown[nodes[1]];
+        const ua = nodeUnknown[n0];
+        const ub = nodeUnknown[n1];
         if (ua >= 0) {
           rhsRe[ua] -= re;
           rhsIm[ua] -= im;
@@ -149,8 +151,8 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): 
       case 'ideal-transformer':
         // I_p enters the primary dot; I_s = −ratio·I_p enters the secondary dot.
         // Constraint: (V_p+ − V_p−) − ratio·(V_s+ − V_s−) = 0. Symmetric stamp.
-        branch(k, nodes[0], nodes[1], 1);
-        branch(k, nodes[2], nodes[3], -el.ratio);
+        branch(k, n0, n1, 1);
+        branch(k, topo.terminals[o + 2], topo.terminals[o + 3], -el.ratio);
         break;
     }
   });
@@ -196,25 +198,29 @@ function compress(n: number, st: StampList): { pattern: CscPattern; slotOf: Int3
   const rowsOut = new Int32Array(count);
   const mark = new Int32Array(n).fill(-1);
   let nnz = 0;
-  const colRows: number[] = [];
   for (let j = 0; j < n; j++) {
     colPtr[j] = nnz;
-    colRows.length = 0;
+    const first = nnz;
     for (let p = colCount[j]; p < colCount[j + 1]; p++) {
       const r = st.rows[order[p]];
       if (mark[r] < 0) {
         mark[r] = 0;
-        colRows.push(r);
+        rowsOut[nnz++] = r;
       }
     }
-    colRows.sort((a, b) => a - b);
-    for (let t = 0; t < colRows.length; t++) {
-      mark[colRows[t]] = nnz + t;
-      rowsOut[nnz + t] = colRows[t];
+    // columns are short: insertion sort in place
+    for (let a = first + 1; a < nnz; a++) {
+      const v = rowsOut[a];
+      let b = a - 1;
+      while (b >= first && rowsOut[b] > v) {
+        rowsOut[b + 1] = rowsOut[b];
+        b--;
+      }
+      rowsOut[b + 1] = v;
     }
+    for (let t = first; t < nnz; t++) mark[rowsOut[t]] = t;
     for (let p = colCount[j]; p < colCount[j + 1]; p++) slotOf[order[p]] = mark[st.rows[order[p]]];
-    nnz += colRows.length;
-    for (const r of colRows) mark[r] = -1;
+    for (let t = first; t < nnz; t++) mark[rowsOut[t]] = -1;
   }
   colPtr[n] = nnz;
   return { pattern: { n, colPtr, rowIdx: rowsOut.slice(0, nnz) }, slotOf };

@@ -139,9 +139,10 @@ export class SolverSession {
     const elements: Record<string, ElementResult> = {};
     model.elements.forEach((el, i) => {
       if (only?.elements && !only.elements.has(el.id)) return;
-      const nd = topo.elementNodes[i];
-      const vr = sol.vRe[nd[0]] - sol.vRe[nd[1]];
-      const vi = sol.vIm[nd[0]] - sol.vIm[nd[1]];
+      const o = 4 * i;
+      const nd = topo.terminals;
+      const vr = sol.vRe[nd[o]] - sol.vRe[nd[o + 1]];
+      const vi = sol.vIm[nd[o]] - sol.vIm[nd[o + 1]];
       let ir = 0;
       let ii = 0;
       const k = mna.branchUnknown[i];
@@ -166,8 +167,8 @@ export class SolverSession {
           break;
         }
         case 'ideal-transformer': {
-          const vsr = sol.vRe[nd[2]] - sol.vRe[nd[3]];
-          const vsi = sol.vIm[nd[2]] - sol.vIm[nd[3]];
+          const vsr = sol.vRe[nd[o + 2]] - sol.vRe[nd[o + 3]];
+          const vsi = sol.vIm[nd[o + 2]] - sol.vIm[nd[o + 3]];
           const ipr = sol.xRe[k];
           const ipi = sol.xIm[k];
           const isr = -el.ratio * ipr;

@@ -36,8 +36,8 @@ export class UnionFind {
 export interface Topology {
   nodeNames: string[];
   nodeIndex: Map<string, number>;
-  /** element index -> node indices (2 or 4) */
-  elementNodes: Int32Array[];
+  /** node indices of element i's terminals at [4·i .. 4·i+3] (−1 past a two-terminal part's second) */
+  terminals: Int32Array;
   /** node -> its reference node (ground, or the isolated part's own reference) */
   referenceOf: Int32Array;
   /** true for nodes held at 0 V (ground and each isolated part's reference) */
@@ -45,47 +45,46 @@ export interface Topology {
   warnings: string[];
 }
 
-/** Galvanic terminal pairs of an element: two-terminal parts join their nodes; a transformer joins each side. */
-export function galvanicPairs(el: GraphElement, nodes: Int32Array): [number, number][] {
-  if (el.kind === 'ideal-transformer') return [[nodes[0], nodes[1]], [nodes[2], nodes[3]]];
-  return [[nodes[0], nodes[1]]];
+/** Joins an element's galvanic terminal pairs: a two-terminal part joins its nodes; a transformer joins each side. */
+function joinGalvanic(uf: UnionFind, el: GraphElement, terminals: Int32Array, i: number): void {
+  uf.union(terminals[4 * i], terminals[4 * i + 1]);
+  if (el.kind === 'ideal-transformer') uf.union(terminals[4 * i + 2], terminals[4 * i + 3]);
 }
 
 export function buildTopology(model: GraphModel): Topology {
   const nodeIndex = new Map<string, number>();
   const nodeNames: string[] = [];
-  const elementNodes = model.elements.map((el) => {
-    const arr = new Int32Array(el.nodes.length);
-    el.nodes.forEach((name, i) => {
-      let idx = nodeIndex.get(name);
+  const elements = model.elements;
+  const terminals = new Int32Array(4 * elements.length).fill(-1);
+  for (let i = 0; i < elements.length; i++) {
+    const names = elements[i].nodes;
+    for (let t = 0; t < names.length; t++) {
+      let idx = nodeIndex.get(names[t]);
       if (idx === undefined) {
         idx = nodeNames.length;
-        nodeIndex.set(name, idx);
-        nodeNames.push(name);
+        nodeIndex.set(names[t], idx);
+        nodeNames.push(names[t]);
       }
-      arr[i] = idx;
-    });
-    return arr;
-  });
+      terminals[4 * i + t] = idx;
+    }
+  }
   const ground = nodeIndex.get(model.ground);
   if (ground === undefined) {
     throw new ModelRefusal(`node "${model.ground}": the ground node is not a terminal of any element; set "ground" to one of the model's nodes`, [{ kind: 'node', id: model.ground }]);
   }
   const n = nodeNames.length;
   const parts = new UnionFind(n);
-  model.elements.forEach((el, i) => {
-    for (const [a, b] of galvanicPairs(el, elementNodes[i])) parts.union(a, b);
-  });
+  for (let i = 0; i < elements.length; i++) joinGalvanic(parts, elements[i], terminals, i);
 
-  checkCurrentSourceCutSets(model, elementNodes, nodeNames, n);
+  checkCurrentSourceCutSets(model, terminals, nodeNames, n);
 
   // Reference of each part: ground for its own part; otherwise the first node
   // of the part met when reading elements in order, each element's nodes in order.
   const refOfRoot = new Map<number, number>();
   refOfRoot.set(parts.find(ground), ground);
-  const order: number[] = [];
-  for (const nodes of elementNodes) for (const v of nodes) order.push(v);
-  for (const v of order) {
+  for (let t = 0; t < terminals.length; t++) {
+    const v = terminals[t];
+    if (v < 0) continue;
     const r = parts.find(v);
     if (!refOfRoot.has(r)) refOfRoot.set(r, v);
   }
@@ -109,18 +108,18 @@ export function buildTopology(model: GraphModel): Topology {
         `their voltages are given relative to node "${ref}", held at 0 V (currents and powers are exact)`,
     );
   }
-  return { nodeNames, nodeIndex, elementNodes, referenceOf, isReference, warnings };
+  return { nodeNames, nodeIndex, terminals, referenceOf, isReference, warnings };
 }
 
-function checkCurrentSourceCutSets(model: GraphModel, elementNodes: Int32Array[], nodeNames: string[], n: number): void {
+function checkCurrentSourceCutSets(model: GraphModel, terminals: Int32Array, nodeNames: string[], n: number): void {
   const uf = new UnionFind(n);
   model.elements.forEach((el, i) => {
-    if (el.kind === 'current-source') return;
-    for (const [a, b] of galvanicPairs(el, elementNodes[i])) uf.union(a, b);
+    if (el.kind !== 'current-source') joinGalvanic(uf, el, terminals, i);
   });
   model.elements.forEach((el, i) => {
     if (el.kind !== 'current-source') return;
-    const [a, b] = elementNodes[i];
+    const a = terminals[4 * i];
+    const b = terminals[4 * i + 1];
     if (uf.find(a) !== uf.find(b)) {
       const side = [] as string[];
       const root = uf.find(b);
@@ -143,14 +142,13 @@ function checkCurrentSourceCutSets(model: GraphModel, elementNodes: Int32Array[]
 export function checkSolvable(model: GraphModel, topo: Topology, frequencyHz: number): void {
   const dc = frequencyHz === 0;
   const n = topo.nodeNames.length;
-  const { elementNodes, nodeNames } = topo;
+  const { terminals, nodeNames } = topo;
 
   if (dc) {
     // Each node must reach its reference through parts that conduct at 0 Hz.
     const uf = new UnionFind(n);
     model.elements.forEach((el, i) => {
-      if (el.kind === 'capacitor' || el.kind === 'current-source') return;
-      for (const [a, b] of galvanicPairs(el, elementNodes[i])) uf.union(a, b);
+      if (el.kind !== 'capacitor' && el.kind !== 'current-source') joinGalvanic(uf, el, terminals, i);
     });
     for (let v = 0; v < n; v++) {
       if (uf.find(v) !== uf.find(topo.referenceOf[v])) {
@@ -181,7 +179,7 @@ export function checkSolvable(model: GraphModel, topo: Topology, frequencyHz: nu
  */
 function checkVoltageConstraints(model: GraphModel, topo: Topology, dc: boolean): void {
   const n = topo.nodeNames.length;
-  const { elementNodes } = topo;
+  const { terminals } = topo;
   const adj: { to: number; label: string }[][] = Array.from({ length: n }, () => []);
   const uf = new UnionFind(n);
   // every reference node is held at 0 V: one class
@@ -193,12 +191,12 @@ function checkVoltageConstraints(model: GraphModel, topo: Topology, dc: boolean)
   }
   const kindOfLoop = dc ? 'voltage sources, ideal-transformer windings and inductors (shorts at 0 Hz)' : 'voltage sources and ideal-transformer windings';
   model.elements.forEach((el, i) => {
-    const nodes = elementNodes[i];
     let label: string | null = null;
     if (el.kind === 'voltage-source') label = `"${el.id}"`;
     else if (el.kind === 'inductor' && dc) label = `"${el.id}" (a short at 0 Hz)`;
     if (label === null) return;
-    const [a, b] = nodes;
+    const a = terminals[4 * i];
+    const b = terminals[4 * i + 1];
     if (!uf.union(a, b)) {
       const loop = [label, ...findPath(adj, a, b)];
       throw new ModelRefusal(
@@ -215,7 +213,7 @@ function checkVoltageConstraints(model: GraphModel, topo: Topology, dc: boolean)
   const pivots: { pivot: number; row: Map<number, number>; ids: Set<string> }[] = [];
   model.elements.forEach((el, i) => {
     if (el.kind !== 'ideal-transformer') return;
-    const nodes = elementNodes[i];
+    const nodes = terminals.subarray(4 * i, 4 * i + 4);
     const row = new Map<number, number>();
     const add = (v: number, c: number) => {
       const cls = uf.find(v);

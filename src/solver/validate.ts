@@ -17,17 +17,20 @@ const fourNodes = z.tuple([nodeName, nodeName, nodeName, nodeName], {
   message: 'must list exactly four node names (primary dotted, primary other, secondary dotted, secondary other)',
 });
 
+const idField = z.string();
 const elementSchemas = {
-  resistor: z.object({ nodes: twoNodes, ohms: positive }),
+  resistor: z.object({ id: idField, kind: z.literal('resistor'), nodes: twoNodes, ohms: positive }),
   inductor: z.object({
+    id: idField,
+    kind: z.literal('inductor'),
     nodes: twoNodes,
     henries: positive,
     dot: z.enum(['first', 'second'], { message: 'must be "first" or "second"' }).optional(),
   }),
-  capacitor: z.object({ nodes: twoNodes, farads: positive }),
-  'voltage-source': z.object({ nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
-  'current-source': z.object({ nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
-  'ideal-transformer': z.object({ nodes: fourNodes, ratio: positive }),
+  capacitor: z.object({ id: idField, kind: z.literal('capacitor'), nodes: twoNodes, farads: positive }),
+  'voltage-source': z.object({ id: idField, kind: z.literal('voltage-source'), nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
+  'current-source': z.object({ id: idField, kind: z.literal('current-source'), nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
+  'ideal-transformer': z.object({ id: idField, kind: z.literal('ideal-transformer'), nodes: fourNodes, ratio: positive }),
 } as const;
 
 const KINDS = Object.keys(elementSchemas) as (keyof typeof elementSchemas)[];
@@ -104,42 +107,47 @@ export function parseGraphModel(input: unknown): GraphModel {
 
   const elements: GraphElement[] = [];
   const seen = new Map<string, number>();
-  top.data.elements.forEach((raw, index) => {
-    const name = label(raw, index);
+  const raws = top.data.elements;
+  for (let index = 0; index < raws.length; index++) {
+    const raw = raws[index];
     if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
-      throw new ModelRefusal(`${name}: expected an object, got ${describe(raw)}`, [{ kind: 'element' }]);
+      throw new ModelRefusal(`${label(raw, index)}: expected an object, got ${describe(raw)}`, [{ kind: 'element' }]);
     }
     const r = raw as Record<string, unknown>;
-    if (typeof r.id !== 'string' || r.id.length === 0) {
-      throw new ModelRefusal(`${name}: "id" must be a non-empty string, got ${describe(r.id)}`, [{ kind: 'element' }]);
-    }
     const id = r.id;
-    if (seen.has(id)) {
-      throw new ModelRefusal(`element "${id}": duplicate id (elements #${seen.get(id)! + 1} and #${index + 1}); give each element its own id`, [{ kind: 'element', id }]);
+    if (typeof id !== 'string' || id.length === 0) {
+      throw new ModelRefusal(`${label(raw, index)}: "id" must be a non-empty string, got ${describe(r.id)}`, [{ kind: 'element' }]);
+    }
+    const before = seen.get(id);
+    if (before !== undefined) {
+      throw new ModelRefusal(`element "${id}": duplicate id (elements #${before + 1} and #${index + 1}); give each element its own id`, [{ kind: 'element', id }]);
     }
     seen.set(id, index);
     const kind = r.kind;
-    if (typeof kind !== 'string' || !(KINDS as string[]).includes(kind)) {
+    const schema = typeof kind === 'string' && Object.hasOwn(elementSchemas, kind) ? elementSchemas[kind as keyof typeof elementSchemas] : undefined;
+    if (!schema) {
       throw new ModelRefusal(`element "${id}": unknown kind ${describe(kind)}; use one of ${KINDS.join(', ')}`, [{ kind: 'element', id }]);
     }
-    const parsed = elementSchemas[kind as keyof typeof elementSchemas].safeParse(r);
+    const parsed = schema.safeParse(r);
     if (!parsed.success) {
       throw new ModelRefusal(`element "${id}" (${kind}): ${firstIssue(parsed.error, r)}`, [{ kind: 'element', id }]);
     }
-    const nodes = (parsed.data as { nodes: string[] }).nodes;
-    if (kind !== 'ideal-transformer' && nodes[0] === nodes[1]) {
+    const el = parsed.data as GraphElement;
+    const nodes = el.nodes;
+    if (nodes.length === 2 && nodes[0] === nodes[1]) {
       throw new ModelRefusal(`element "${id}" (${kind}): both terminals are on node "${nodes[0]}"; connect it between two different nodes or remove it`, [{ kind: 'element', id }]);
     }
-    if (kind === 'ideal-transformer' && (nodes[0] === nodes[1] || nodes[2] === nodes[3])) {
+    if (nodes.length === 4 && (nodes[0] === nodes[1] || nodes[2] === nodes[3])) {
       const side = nodes[0] === nodes[1] ? 'primary' : 'secondary';
       throw new ModelRefusal(`element "${id}" (ideal-transformer): the ${side} winding has both terminals on one node; connect it between two different nodes`, [{ kind: 'element', id }]);
     }
-    elements.push({ id, kind, ...parsed.data } as GraphElement);
-  });
+    elements.push(el);
+  }
 
   const byId = new Map(elements.map((e) => [e.id, e]));
   const couplings: Coupling[] = [];
   const pairOwner = new Map<string, string>();
+  const couplingIds = new Set<string>();
   (top.data.couplings ?? []).forEach((raw, index) => {
     const rid = (raw as { id?: unknown } | null)?.id;
     const name = typeof rid === 'string' && rid.length > 0 ? `coupling "${rid}"` : `coupling #${index + 1}`;
@@ -149,7 +157,7 @@ export function parseGraphModel(input: unknown): GraphModel {
     if (typeof rid !== 'string' || rid.length === 0) {
       throw new ModelRefusal(`${name}: "id" must be a non-empty string`, [{ kind: 'coupling' }]);
     }
-    if (byId.has(rid) || couplings.some((c) => c.id === rid)) {
+    if (byId.has(rid) || couplingIds.has(rid)) {
       throw new ModelRefusal(`coupling "${rid}": duplicate id; give each element and coupling its own id`, [{ kind: 'coupling', id: rid }]);
     }
     const parsed = couplingSchema.safeParse(raw);
@@ -189,6 +197,7 @@ export function parseGraphModel(input: unknown): GraphModel {
         pairOwner.set(key, rid);
       }
     }
+    couplingIds.add(rid);
     couplings.push(k !== undefined ? { id: rid, windings: [...windings], k } : { id: rid, windings: [...windings], henries });
   });
 
