@@ -10,7 +10,7 @@ import { buildTopology, checkSolvable, type Topology } from './topology';
 import { collectMutuals } from './inductance';
 import { buildMna, type MnaSystem } from './mna';
 import { analyze, ComplexSparseLU, type LuSymbolic } from './lu-backend';
-import { SingularMatrixError } from './sparse/types';
+import { SingularMatrixError, type CscPattern } from './sparse/types';
 
 /** Raw solution at one frequency: node voltages and branch currents as typed arrays. */
 export interface RawSolution {
@@ -40,15 +40,34 @@ export class SolverSession {
   private checked = new Set<boolean>();
   private factored = false;
 
-  constructor(model: GraphModel) {
+  /**
+   * `previous`: the session of the model before an edit. When the edit kept
+   * the matrix pattern (a value changed, not the wiring), its symbolic
+   * analysis and LU are taken over and the next solve only refactors.
+   */
+  constructor(model: GraphModel, previous?: SolverSession) {
     this.model = model;
     this.topo = buildTopology(model);
     const mutuals = collectMutuals(model);
     this.mna = buildMna(model, this.topo, mutuals);
-    this.symbolic = analyze(this.mna.pattern);
-    this.lu = new ComplexSparseLU(this.symbolic);
-    this.re = new Float64Array(this.mna.pattern.rowIdx.length);
-    this.im = new Float64Array(this.mna.pattern.rowIdx.length);
+    if (previous && samePattern(previous.mna.pattern, this.mna.pattern)) {
+      this.symbolic = previous.symbolic;
+      this.lu = previous.lu;
+      this.factored = previous.factored;
+      this.re = previous.re;
+      this.im = previous.im;
+      previous.factored = false; // the LU now belongs to this session
+    } else {
+      this.symbolic = analyze(this.mna.pattern);
+      this.lu = new ComplexSparseLU(this.symbolic);
+      this.re = new Float64Array(this.mna.pattern.rowIdx.length);
+      this.im = new Float64Array(this.mna.pattern.rowIdx.length);
+    }
+  }
+
+  /** True when this session took over the symbolic analysis of the one before. */
+  reuses(previous: SolverSession): boolean {
+    return this.symbolic === previous.symbolic;
   }
 
   get warnings(): string[] {
@@ -199,6 +218,13 @@ export class SolverSession {
       warnings: [...topo.warnings],
     };
   }
+}
+
+function samePattern(a: CscPattern, b: CscPattern): boolean {
+  if (a.n !== b.n || a.rowIdx.length !== b.rowIdx.length) return false;
+  for (let i = 0; i <= a.n; i++) if (a.colPtr[i] !== b.colPtr[i]) return false;
+  for (let i = 0; i < a.rowIdx.length; i++) if (a.rowIdx[i] !== b.rowIdx[i]) return false;
+  return true;
 }
 
 /** Normalises −0 to 0 so that JSON output never shows "-0". */
