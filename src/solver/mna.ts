@@ -9,10 +9,15 @@ import type { Mutual } from './inductance';
  * voltage source, per inductor and per ideal transformer (its primary current;
  * the secondary's follows from ratio·I_p + I_s = 0).
  *
- * Every matrix entry is affine in ω, so the system is stored once as
- * value = c + ω·w per slot of a fixed sparse pattern; a new frequency only
- * re-evaluates that sum.
+ * Every matrix entry is c + ω·w + u/ω, so the system is stored once as those
+ * three terms per slot of a fixed sparse pattern; a new frequency only
+ * re-evaluates the sum. In the 'ac' form an inductor that takes part in no
+ * coupling is stamped as the admittance 1/(jωL) (the u term) and needs no
+ * branch current, which keeps the system smaller; the 'dc' form gives every
+ * inductor a branch, since at 0 Hz it is a short.
  */
+export type MnaForm = 'ac' | 'dc';
+
 export interface MnaSystem {
   n: number;
   pattern: CscPattern;
@@ -20,6 +25,9 @@ export interface MnaSystem {
   cIm: Float64Array;
   wRe: Float64Array;
   wIm: Float64Array;
+  /** coefficient of 1/ω (imaginary), 'ac' form only */
+  uIm: Float64Array;
+  form: MnaForm;
   rhsRe: Float64Array;
   rhsIm: Float64Array;
   /** node index -> unknown index, −1 for reference nodes */
@@ -33,24 +41,25 @@ export interface MnaSystem {
 class StampList {
   rows: Int32Array;
   cols: Int32Array;
-  vals: Float64Array; // cRe, cIm, wRe, wIm per stamp
+  vals: Float64Array; // cRe, cIm, wRe, wIm, uIm per stamp
   size = 0;
   constructor(capacity: number) {
     this.rows = new Int32Array(capacity);
     this.cols = new Int32Array(capacity);
-    this.vals = new Float64Array(capacity * 4);
+    this.vals = new Float64Array(capacity * 5);
   }
-  add(r: number, c: number, cRe: number, cIm: number, wRe: number, wIm: number): void {
+  add(r: number, c: number, cRe: number, cIm: number, wRe: number, wIm: number, uIm = 0): void {
     if (r < 0 || c < 0) return;
     if (this.size === this.rows.length) this.grow();
     const s = this.size++;
     this.rows[s] = r;
     this.cols[s] = c;
-    const v = s * 4;
+    const v = s * 5;
     this.vals[v] = cRe;
     this.vals[v + 1] = cIm;
     this.vals[v + 2] = wRe;
     this.vals[v + 3] = wIm;
+    this.vals[v + 4] = uIm;
   }
   private grow(): void {
     const cap = this.rows.length * 2 + 16;
@@ -58,7 +67,7 @@ class StampList {
     rows.set(this.rows);
     const cols = new Int32Array(cap);
     cols.set(this.cols);
-    const vals = new Float64Array(cap * 4);
+    const vals = new Float64Array(cap * 5);
     vals.set(this.vals);
     this.rows = rows;
     this.cols = cols;
@@ -66,7 +75,9 @@ class StampList {
   }
 }
 
-export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): MnaSystem {
+export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], form: MnaForm = 'dc'): MnaSystem {
+  const coupled = new Uint8Array(model.elements.length);
+  for (const mu of mutuals) coupled[mu.a] = coupled[mu.b] = 1;
   const nNodes = topo.nodeNames.length;
   const nodeUnknown = new Int32Array(nNodes).fill(-1);
   const unknownOwner: number[] = [];
@@ -80,7 +91,8 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): 
   const nodeCount = n;
   const branchUnknown = new Int32Array(model.elements.length).fill(-1);
   model.elements.forEach((el, i) => {
-    if (el.kind === 'inductor' || el.kind === 'voltage-source' || el.kind === 'ideal-transformer') {
+    const needsBranch = el.kind === 'inductor' ? form === 'dc' || coupled[i] === 1 : el.kind === 'voltage-source' || el.kind === 'ideal-transformer';
+    if (needsBranch) {
       branchUnknown[i] = n++;
       unknownOwner.push(i);
     }
@@ -91,13 +103,13 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): 
   const rhsRe = new Float64Array(n);
   const rhsIm = new Float64Array(n);
 
-  const admittance = (a: number, b: number, cRe: number, wIm: number) => {
+  const admittance = (a: number, b: number, cRe: number, wIm: number, uIm = 0) => {
     const ua = nodeUnknown[a];
     const ub = nodeUnknown[b];
-    st.add(ua, ua, cRe, 0, 0, wIm);
-    st.add(ub, ub, cRe, 0, 0, wIm);
-    st.add(ua, ub, -cRe, 0, 0, -wIm);
-    st.add(ub, ua, -cRe, 0, 0, -wIm);
+    st.add(ua, ua, cRe, 0, 0, wIm, uIm);
+    st.add(ub, ub, cRe, 0, 0, wIm, uIm);
+    st.add(ua, ub, -cRe, 0, 0, -wIm, -uIm);
+    st.add(ub, ua, -cRe, 0, 0, -wIm, -uIm);
   };
   /** Branch current unknown k flowing from node a to node b through the element: KCL columns and the constraint row's voltage terms. */
   const branch = (k: number, a: number, b: number, gain: number) => {
@@ -122,6 +134,10 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): 
         admittance(n0, n1, 0, el.farads);
         break;
       case 'inductor':
+        if (k < 0) {
+          admittance(n0, n1, 0, 0, -1 / el.henries); // 1/(jωL) = −j/(ωL)
+          break;
+        }
         branch(k, n0, n1, 1);
         st.add(k, k, 0, 0, 0, -el.henries); // V_a − V_b − jωL·I = 0
         break;
@@ -169,9 +185,11 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): 
   const cIm = new Float64Array(nnz);
   const wRe = new Float64Array(nnz);
   const wIm = new Float64Array(nnz);
+  const uIm = new Float64Array(nnz);
   for (let s = 0; s < st.size; s++) {
     const slot = slotOf[s];
-    const v = s * 4;
+    const v = s * 5;
+    uIm[slot] += st.vals[v + 4];
     cRe[slot] += st.vals[v];
     cIm[slot] += st.vals[v + 1];
     wRe[slot] += st.vals[v + 2];
@@ -181,7 +199,7 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[]): 
     u < nodeCount
       ? { kind: 'node' as const, id: topo.nodeNames[unknownOwner[u]] }
       : { kind: 'element' as const, id: model.elements[unknownOwner[u]].id };
-  return { n, pattern, cRe, cIm, wRe, wIm, rhsRe, rhsIm, nodeUnknown, branchUnknown, unknownLabel };
+  return { n, pattern, cRe, cIm, wRe, wIm, uIm, form, rhsRe, rhsIm, nodeUnknown, branchUnknown, unknownLabel };
 }
 
 /** Triplets to CSC with sorted, unique rows per column; slotOf maps each triplet to its entry. */

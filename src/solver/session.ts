@@ -8,13 +8,15 @@ import {
 import { ModelRefusal } from './errors';
 import { buildTopology, checkSolvable, type Topology } from './topology';
 import { collectMutuals } from './inductance';
-import { buildMna, type MnaSystem } from './mna';
+import { buildMna, type MnaSystem, type MnaForm } from './mna';
 import { analyze, ComplexSparseLU, type LuSymbolic } from './lu-backend';
 import { SingularMatrixError, type CscPattern } from './sparse/types';
 
 /** Raw solution at one frequency: node voltages and branch currents as typed arrays. */
 export interface RawSolution {
   frequencyHz: number;
+  /** the system the unknowns belong to */
+  mna: MnaSystem;
   /** per node index */
   vRe: Float64Array;
   vIm: Float64Array;
@@ -39,17 +41,18 @@ export class SolverSession {
   private readonly im: Float64Array;
   private checked = new Set<boolean>();
   private factored = false;
+  private dcTwin?: SolverSession;
 
   /**
    * `previous`: the session of the model before an edit. When the edit kept
    * the matrix pattern (a value changed, not the wiring), its symbolic
    * analysis and LU are taken over and the next solve only refactors.
    */
-  constructor(model: GraphModel, previous?: SolverSession) {
+  constructor(model: GraphModel, previous?: SolverSession, form: MnaForm = model.frequencyHz === 0 ? 'dc' : 'ac') {
     this.model = model;
     this.topo = buildTopology(model);
     const mutuals = collectMutuals(model);
-    this.mna = buildMna(model, this.topo, mutuals);
+    this.mna = buildMna(model, this.topo, mutuals, form);
     if (previous && samePattern(previous.mna.pattern, this.mna.pattern)) {
       this.symbolic = previous.symbolic;
       this.lu = previous.lu;
@@ -84,12 +87,24 @@ export class SolverSession {
       checkSolvable(this.model, this.topo, frequencyHz);
       this.checked.add(dc);
     }
+    if (dc && this.mna.form === 'ac') {
+      this.dcTwin ??= new SolverSession(this.model, undefined, 'dc');
+      return this.dcTwin.solveRaw(0);
+    }
     const { mna, re, im } = this;
     const omega = 2 * Math.PI * frequencyHz;
-    const { cRe, cIm, wRe, wIm } = mna;
-    for (let s = 0; s < re.length; s++) {
-      re[s] = cRe[s] + omega * wRe[s];
-      im[s] = cIm[s] + omega * wIm[s];
+    const { cRe, cIm, wRe, wIm, uIm } = mna;
+    if (mna.form === 'ac') {
+      const inv = 1 / omega;
+      for (let s = 0; s < re.length; s++) {
+        re[s] = cRe[s] + omega * wRe[s];
+        im[s] = cIm[s] + omega * wIm[s] + uIm[s] * inv;
+      }
+    } else {
+      for (let s = 0; s < re.length; s++) {
+        re[s] = cRe[s] + omega * wRe[s];
+        im[s] = cIm[s] + omega * wIm[s];
+      }
     }
     try {
       if (this.factored) this.lu.refactor({ re, im });
@@ -122,7 +137,7 @@ export class SolverSession {
         );
       }
     }
-    return { frequencyHz, vRe, vIm, xRe, xIm };
+    return { frequencyHz, mna, vRe, vIm, xRe, xIm };
   }
 
   solveAt(frequencyHz: number): SolveResult {
@@ -147,7 +162,8 @@ export class SolverSession {
 
   /** Builds the spec's result JSON from a raw solution. */
   toResult(sol: RawSolution, only?: { nodes?: Set<string>; elements?: Set<string> }): SolveResult {
-    const { model, topo, mna } = this;
+    const { model, topo } = this;
+    const mna = sol.mna;
     const dc = sol.frequencyHz === 0;
     const scale = dc || model.amplitudes === 'rms' ? 1 : 0.5;
     const omega = 2 * Math.PI * sol.frequencyHz;
@@ -175,6 +191,15 @@ export class SolverSession {
           ii = omega * el.farads * vr;
           break;
         case 'inductor':
+          if (k < 0) {
+            // admittance form: I = V/(jωL)
+            ir = vi / (omega * el.henries);
+            ii = -vr / (omega * el.henries);
+            break;
+          }
+          ir = sol.xRe[k];
+          ii = sol.xIm[k];
+          break;
         case 'voltage-source':
           ir = sol.xRe[k];
           ii = sol.xIm[k];
