@@ -26,8 +26,14 @@ export function dotSign(el: InductorEl): 1 | -1 {
  * exactly singular k = 1 case.
  */
 export function collectMutuals(model: GraphModel): Mutual[] {
-  const index = new Map(model.elements.map((e, i) => [e.id, i]));
   const mutuals: Mutual[] = [];
+  if (!model.couplings?.length) return mutuals;
+  const wanted = new Set<string>();
+  for (const c of model.couplings) for (const w of c.windings) wanted.add(w);
+  const index = new Map<string, number>();
+  model.elements.forEach((e, i) => {
+    if (wanted.has(e.id)) index.set(e.id, i);
+  });
   for (const c of model.couplings ?? []) {
     const ids = c.windings;
     for (let i = 0; i < ids.length; i++) {
