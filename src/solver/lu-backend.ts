@@ -1,1 +1,1 @@
-export { analyze, ComplexSparseLU, type LuSymbolic } from './dense-lu-temp';
+export { analyze, ComplexSparseLU, type LuSymbolic } from './sparse/lu';

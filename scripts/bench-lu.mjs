@@ -1,0 +1,144 @@
+// Micro-benchmark of the complex sparse LU on an MNA-like 2-D grid.
+// Usage: node scripts/bench-lu.mjs [sizes...]   (default 1000 10000 100000)
+import { build } from 'esbuild';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL, fileURLToPath } from 'node:url';
+
+const here = fileURLToPath(new URL('.', import.meta.url));
+const dir = mkdtempSync(join(tmpdir(), 'bench-lu-'));
+const out = join(dir, 'sparse.mjs');
+await build({ entryPoints: [join(here, '../src/solver/sparse/index.ts')], bundle: true, format: 'esm', platform: 'neutral', outfile: out, logLevel: 'error' });
+const { analyze, ComplexSparseLU } = await import(pathToFileURL(out).href);
+rmSync(dir, { recursive: true, force: true });
+
+/** Grid of admittances (5-point) plus a branch row/column with zero diagonal every `every` nodes. */
+function mnaGrid(nTarget, every = 200, seed = 1) {
+  let s = seed >>> 0;
+  const rnd = () => ((s = (s * 1664525 + 1013904223) >>> 0) / 4294967296);
+  const m = Math.max(2, Math.round(Math.sqrt(nTarget)));
+  const nNodes = m * m;
+  const branches = [];
+  for (let v = 0; v < nNodes; v += every) branches.push(v);
+  const n = nNodes + branches.length;
+  const cols = Array.from({ length: n }, () => new Map());
+  const add = (i, j, re, im) => {
+    const c = cols[j];
+    const o = c.get(i);
+    if (o) { o[0] += re; o[1] += im; } else c.set(i, [re, im]);
+  };
+  const id = (x, y) => x + m * y;
+  for (let y = 0; y < m; y++) for (let x = 0; x < m; x++) {
+    const a = id(x, y);
+    add(a, a, 1e-3 * rnd(), 1e-4 * rnd()); // leak to ground
+    for (const [dx, dy] of [[1, 0], [0, 1]]) {
+      if (x + dx >= m || y + dy >= m) continue;
+      const b = id(x + dx, y + dy);
+      const gr = 10 ** (-2 + 4 * rnd());
+      const gi = (rnd() - 0.5) * gr;
+      add(a, a, gr, gi); add(b, b, gr, gi); add(a, b, -gr, -gi); add(b, a, -gr, -gi);
+    }
+  }
+  branches.forEach((v, t) => { // voltage source v -> gnd: zero diagonal
+    const k = nNodes + t;
+    add(v, k, 1, 0); add(k, v, 1, 0);
+  });
+  return toCsc(n, cols);
+}
+
+/** Ladder of sections (series R, inductor branch row, shunt C), consecutive inductors coupled, source at node 0. */
+function mnaLadder(nTarget, f = 50e3, seed = 2) {
+  let s = seed >>> 0;
+  const rnd = () => ((s = (s * 1664525 + 1013904223) >>> 0) / 4294967296);
+  const sections = Math.max(1, Math.floor((nTarget - 2) / 3));
+  const n = 2 + 3 * sections; // node 0, source branch, then (mid, node, branch) per section
+  const w = 2 * Math.PI * f;
+  const cols = Array.from({ length: n }, () => new Map());
+  const add = (i, j, re, im) => { const c = cols[j]; const o = c.get(i); if (o) { o[0] += re; o[1] += im; } else c.set(i, [re, im]); };
+  add(0, 1, 1, 0); add(1, 0, 1, 0);
+  let prev = 0;
+  for (let t = 0; t < sections; t++) {
+    const mid = 2 + 3 * t, node = mid + 1, br = mid + 2;
+    const g = 1 / (0.1 + 10 * rnd());
+    add(prev, prev, g, 0); add(mid, mid, g, 0); add(prev, mid, -g, 0); add(mid, prev, -g, 0);
+    add(mid, br, 1, 0); add(node, br, -1, 0); add(br, mid, 1, 0); add(br, node, -1, 0);
+    const L = 1e-6 + 1e-3 * rnd();
+    add(br, br, 0, -w * L);
+    if (t > 0) { const M = 0.5 * 1e-4; add(br, br - 3, 0, -w * M); add(br - 3, br, 0, -w * M); }
+    add(node, node, 1e-3, w * (1e-9 + 1e-6 * rnd()));
+    prev = node;
+  }
+  return toCsc(n, cols);
+}
+
+function toCsc(n, cols) {
+  const colPtr = new Int32Array(n + 1);
+  let nnz = 0;
+  for (let j = 0; j < n; j++) { nnz += cols[j].size; colPtr[j + 1] = nnz; }
+  const rowIdx = new Int32Array(nnz), re = new Float64Array(nnz), im = new Float64Array(nnz);
+  for (let j = 0; j < n; j++) {
+    const rows = [...cols[j].keys()].sort((a, b) => a - b);
+    let p = colPtr[j];
+    for (const i of rows) { const v = cols[j].get(i); rowIdx[p] = i; re[p] = v[0]; im[p] = v[1]; p++; }
+  }
+  return { pattern: { n, colPtr, rowIdx }, values: { re, im } };
+}
+
+function matvec(pattern, values, xr, xi) {
+  const { n, colPtr, rowIdx } = pattern;
+  const yr = new Float64Array(n), yi = new Float64Array(n);
+  for (let j = 0; j < n; j++) for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+    const i = rowIdx[p], ar = values.re[p], ai = values.im[p];
+    yr[i] += ar * xr[j] - ai * xi[j]; yi[i] += ar * xi[j] + ai * xr[j];
+  }
+  return [yr, yi];
+}
+
+const now = () => performance.now();
+const median = (a) => a.slice().sort((x, y) => x - y)[a.length >> 1];
+const args = process.argv.slice(2);
+const family = args.find((a) => a === 'grid' || a === 'ladder');
+const sizes = args.filter((a) => a !== family).map(Number);
+const families = family ? [family] : ['grid', 'ladder'];
+
+function once(pattern, values) {
+  const n = pattern.n;
+  const bre = new Float64Array(n).fill(1), bim = new Float64Array(n);
+  let t0 = now();
+  const sym = analyze(pattern);
+  const t1 = now();
+  const lu = new ComplexSparseLU(sym);
+  lu.factor(values);
+  const t2 = now();
+  lu.solve(bre, bim);
+  const t3 = now();
+  const v2 = { re: values.re.map((x) => x * 1.01), im: values.im.slice() };
+  const b2 = new Float64Array(n).fill(1), c2 = new Float64Array(n);
+  const t4 = now();
+  const ok = lu.refactor(v2);
+  const t5 = now();
+  lu.solve(b2, c2);
+  const t6 = now();
+  if (!ok) console.log('  refactor fell back');
+  return { lu, v2, b2, c2, a: t1 - t0, f: t2 - t1, s: t3 - t2, tot: t3 - t0, r: t5 - t4, rs: t6 - t4 };
+}
+
+for (const fam of families) {
+  for (const N of sizes.length ? sizes : [1000, 10000, 100000]) {
+    const { pattern, values } = fam === 'grid' ? mnaGrid(N) : mnaLadder(N);
+    const n = pattern.n;
+    const reps = N >= 100000 ? 3 : N >= 10000 ? 15 : 41;
+    const cold = once(pattern, values); // includes JIT warm-up for this size
+    const runs = [];
+    for (let r = 0; r < reps; r++) runs.push(once(pattern, values));
+    const { lu, v2, b2, c2 } = runs[0];
+    const [yr, yi] = matvec(pattern, v2, b2, c2);
+    let resid = 0;
+    for (let i = 0; i < n; i++) resid = Math.max(resid, Math.hypot(yr[i] - 1, yi[i]));
+    const f = (k) => median(runs.map((r) => r[k])).toFixed(2).padStart(8);
+    console.log(`${fam} n=${n} nnz(A)=${pattern.colPtr[n]} nnz(L)=${lu.nnzL} nnz(U)=${lu.nnzU} nnz(L+U-I)=${lu.nnzL + lu.nnzU - n} max|Ax-b|=${resid.toExponential(2)}`);
+    console.log(`  ms (median of ${reps}): analyze ${f('a')} factor ${f('f')} solve ${f('s')} | analyze+factor+solve ${f('tot')} | refactor ${f('r')} refactor+solve ${f('rs')} | ratio ${(median(runs.map((r) => r.tot)) / median(runs.map((r) => r.rs))).toFixed(1)}x`);
+    console.log(`  first call in this process (cold JIT): analyze ${cold.a.toFixed(1)} factor ${cold.f.toFixed(1)} solve ${cold.s.toFixed(1)}`);
+  }
+}
