@@ -9,7 +9,7 @@ import type { Mutual } from './inductance';
  * voltage source, per inductor and per ideal transformer (its primary current;
  * the secondary's follows from ratio·I_p + I_s = 0).
  *
- * Every matrix entry is c + ω·w + u/ω, so the system is stored once as those
+ * Every matrix entry is c + j(ω·w + u/ω), so the system is stored once as those
  * three terms per slot of a fixed sparse pattern; a new frequency only
  * re-evaluates the sum. In the 'ac' form an inductor that takes part in no
  * coupling is stamped as the admittance 1/(jωL) (the u term) and needs no
@@ -21,11 +21,11 @@ export type MnaForm = 'ac' | 'dc';
 export interface MnaSystem {
   n: number;
   pattern: CscPattern;
+  /** real part of each entry (frequency independent) */
   cRe: Float64Array;
-  cIm: Float64Array;
-  wRe: Float64Array;
+  /** imaginary part per unit ω */
   wIm: Float64Array;
-  /** coefficient of 1/ω (imaginary), 'ac' form only */
+  /** imaginary part times ω ('ac' form only) */
   uIm: Float64Array;
   form: MnaForm;
   rhsRe: Float64Array;
@@ -38,40 +38,44 @@ export interface MnaSystem {
   unknownLabel: (u: number) => { kind: 'node' | 'element'; id: string };
 }
 
+/** Which term of c + jω·w + u/(jω)… a stamp feeds: every stamp has exactly one. */
+const REAL = 0; // constant real part (conductances, ±1 incidences, ratios)
+const OMEGA = 1; // imaginary part times ω (capacitances, −L, −M)
+const INV_OMEGA = 2; // imaginary part over ω (−1/L of an admittance-form inductor)
+type Term = typeof REAL | typeof OMEGA | typeof INV_OMEGA;
+
 class StampList {
   rows: Int32Array;
   cols: Int32Array;
-  vals: Float64Array; // cRe, cIm, wRe, wIm, uIm per stamp
+  terms: Uint8Array;
+  vals: Float64Array;
   size = 0;
   constructor(capacity: number) {
     this.rows = new Int32Array(capacity);
     this.cols = new Int32Array(capacity);
-    this.vals = new Float64Array(capacity * 5);
+    this.terms = new Uint8Array(capacity);
+    this.vals = new Float64Array(capacity);
   }
-  add(r: number, c: number, cRe: number, cIm: number, wRe: number, wIm: number, uIm = 0): void {
+  add(r: number, c: number, term: Term, v: number): void {
     if (r < 0 || c < 0) return;
     if (this.size === this.rows.length) this.grow();
     const s = this.size++;
     this.rows[s] = r;
     this.cols[s] = c;
-    const v = s * 5;
-    this.vals[v] = cRe;
-    this.vals[v + 1] = cIm;
-    this.vals[v + 2] = wRe;
-    this.vals[v + 3] = wIm;
-    this.vals[v + 4] = uIm;
+    this.terms[s] = term;
+    this.vals[s] = v;
   }
   private grow(): void {
     const cap = this.rows.length * 2 + 16;
-    const rows = new Int32Array(cap);
-    rows.set(this.rows);
-    const cols = new Int32Array(cap);
-    cols.set(this.cols);
-    const vals = new Float64Array(cap * 5);
-    vals.set(this.vals);
-    this.rows = rows;
-    this.cols = cols;
-    this.vals = vals;
+    const grown = <T extends Int32Array | Uint8Array | Float64Array>(a: T, make: (n: number) => T): T => {
+      const b = make(cap);
+      b.set(a as never);
+      return b;
+    };
+    this.rows = grown(this.rows, (n) => new Int32Array(n));
+    this.cols = grown(this.cols, (n) => new Int32Array(n));
+    this.terms = grown(this.terms, (n) => new Uint8Array(n));
+    this.vals = grown(this.vals, (n) => new Float64Array(n));
   }
 }
 
@@ -99,26 +103,26 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
   });
 
   const st = new StampList(model.elements.length * 5 + mutuals.length * 2 + n);
-  for (let u = 0; u < n; u++) st.add(u, u, 0, 0, 0, 0);
+  for (let u = 0; u < n; u++) st.add(u, u, REAL, 0);
   const rhsRe = new Float64Array(n);
   const rhsIm = new Float64Array(n);
 
-  const admittance = (a: number, b: number, cRe: number, wIm: number, uIm = 0) => {
+  const admittance = (a: number, b: number, term: Term, y: number) => {
     const ua = nodeUnknown[a];
     const ub = nodeUnknown[b];
-    st.add(ua, ua, cRe, 0, 0, wIm, uIm);
-    st.add(ub, ub, cRe, 0, 0, wIm, uIm);
-    st.add(ua, ub, -cRe, 0, 0, -wIm, -uIm);
-    st.add(ub, ua, -cRe, 0, 0, -wIm, -uIm);
+    st.add(ua, ua, term, y);
+    st.add(ub, ub, term, y);
+    st.add(ua, ub, term, -y);
+    st.add(ub, ua, term, -y);
   };
   /** Branch current unknown k flowing from node a to node b through the element: KCL columns and the constraint row's voltage terms. */
   const branch = (k: number, a: number, b: number, gain: number) => {
     const ua = nodeUnknown[a];
     const ub = nodeUnknown[b];
-    st.add(ua, k, gain, 0, 0, 0);
-    st.add(ub, k, -gain, 0, 0, 0);
-    st.add(k, ua, gain, 0, 0, 0);
-    st.add(k, ub, -gain, 0, 0, 0);
+    st.add(ua, k, REAL, gain);
+    st.add(ub, k, REAL, -gain);
+    st.add(k, ua, REAL, gain);
+    st.add(k, ub, REAL, -gain);
   };
 
   model.elements.forEach((el, i) => {
@@ -128,18 +132,18 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
     const k = branchUnknown[i];
     switch (el.kind) {
       case 'resistor':
-        admittance(n0, n1, 1 / el.ohms, 0);
+        admittance(n0, n1, REAL, 1 / el.ohms);
         break;
       case 'capacitor':
-        admittance(n0, n1, 0, el.farads);
+        admittance(n0, n1, OMEGA, el.farads);
         break;
       case 'inductor':
         if (k < 0) {
-          admittance(n0, n1, 0, 0, -1 / el.henries); // 1/(jωL) = −j/(ωL)
+          admittance(n0, n1, INV_OMEGA, -1 / el.henries); // 1/(jωL) = −j/(ωL)
           break;
         }
         branch(k, n0, n1, 1);
-        st.add(k, k, 0, 0, 0, -el.henries); // V_a − V_b − jωL·I = 0
+        st.add(k, k, OMEGA, -el.henries); // V_a − V_b − jωL·I = 0
         break;
       case 'voltage-source': {
         branch(k, n0, n1, 1);
@@ -175,31 +179,22 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
   for (const mu of mutuals) {
     const ka = branchUnknown[mu.a];
     const kb = branchUnknown[mu.b];
-    st.add(ka, kb, 0, 0, 0, -mu.m);
-    st.add(kb, ka, 0, 0, 0, -mu.m);
+    st.add(ka, kb, OMEGA, -mu.m);
+    st.add(kb, ka, OMEGA, -mu.m);
   }
 
   const { pattern, slotOf } = compress(n, st);
   const nnz = pattern.rowIdx.length;
   const cRe = new Float64Array(nnz);
-  const cIm = new Float64Array(nnz);
-  const wRe = new Float64Array(nnz);
   const wIm = new Float64Array(nnz);
   const uIm = new Float64Array(nnz);
-  for (let s = 0; s < st.size; s++) {
-    const slot = slotOf[s];
-    const v = s * 5;
-    uIm[slot] += st.vals[v + 4];
-    cRe[slot] += st.vals[v];
-    cIm[slot] += st.vals[v + 1];
-    wRe[slot] += st.vals[v + 2];
-    wIm[slot] += st.vals[v + 3];
-  }
+  const byTerm = [cRe, wIm, uIm];
+  for (let s = 0; s < st.size; s++) byTerm[st.terms[s]][slotOf[s]] += st.vals[s];
   const unknownLabel = (u: number) =>
     u < nodeCount
       ? { kind: 'node' as const, id: topo.nodeNames[unknownOwner[u]] }
       : { kind: 'element' as const, id: model.elements[unknownOwner[u]].id };
-  return { n, pattern, cRe, cIm, wRe, wIm, uIm, form, rhsRe, rhsIm, nodeUnknown, branchUnknown, unknownLabel };
+  return { n, pattern, cRe, wIm, uIm, form, rhsRe, rhsIm, nodeUnknown, branchUnknown, unknownLabel };
 }
 
 /** Triplets to CSC with sorted, unique rows per column; slotOf maps each triplet to its entry. */

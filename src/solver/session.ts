@@ -93,18 +93,13 @@ export class SolverSession {
     }
     const { mna, re, im } = this;
     const omega = 2 * Math.PI * frequencyHz;
-    const { cRe, cIm, wRe, wIm, uIm } = mna;
+    const { cRe, wIm, uIm } = mna;
+    re.set(cRe);
     if (mna.form === 'ac') {
       const inv = 1 / omega;
-      for (let s = 0; s < re.length; s++) {
-        re[s] = cRe[s] + omega * wRe[s];
-        im[s] = cIm[s] + omega * wIm[s] + uIm[s] * inv;
-      }
+      for (let s = 0; s < im.length; s++) im[s] = omega * wIm[s] + uIm[s] * inv;
     } else {
-      for (let s = 0; s < re.length; s++) {
-        re[s] = cRe[s] + omega * wRe[s];
-        im[s] = cIm[s] + omega * wIm[s];
-      }
+      for (let s = 0; s < im.length; s++) im[s] = omega * wIm[s];
     }
     try {
       if (this.factored) this.lu.refactor({ re, im });
