@@ -1,7 +1,7 @@
 import { readFileSync, statSync } from 'node:fs';
 import { parseArgs, UsageError, USAGE } from './args';
 import { loadModelText } from './load';
-import { formatJson } from './format';
+import { jsonPieces } from './format';
 import { ModelRefusal, solveGraph, sweepGraph, frequencyGrid, ProbeError } from '../solver';
 
 const MAX_FILE_BYTES = 512 * 1024 * 1024;
@@ -24,6 +24,26 @@ function readFile(path: string): string {
   return readFileSync(path, 'utf8');
 }
 
+/** Writes pieces to standard output in chunks of about 1 MB, waiting when the pipe is full. */
+async function writeOut(pieces: Iterable<string>): Promise<void> {
+  let buf: string[] = [];
+  let size = 0;
+  const flush = () =>
+    new Promise<void>((resolve, reject) => {
+      const chunk = buf.join('');
+      buf = [];
+      size = 0;
+      process.stdout.write(chunk, (err) => (err ? reject(err) : resolve()));
+    });
+  for (const p of pieces) {
+    buf.push(p);
+    size += p.length;
+    if (size >= 1 << 20) await flush();
+  }
+  buf.push('\n');
+  await flush();
+}
+
 async function main(argv: string[]): Promise<void> {
   let cmd;
   try {
@@ -36,18 +56,18 @@ async function main(argv: string[]): Promise<void> {
     process.stdout.write(USAGE + '\n');
     return;
   }
-  const text = readFile(cmd.file);
   try {
-    const { model } = await loadModelText(text, cmd.file);
     let out: unknown;
-    if (cmd.command === 'solve') out = solveGraph(model);
-    else if (cmd.command === 'sweep') out = sweepGraph(model, frequencyGrid(cmd.from, cmd.to, cmd.points, cmd.log), cmd.probe);
-    else {
+    if (cmd.command === 'svg') {
       const { renderSheetSvg } = await import('./svg');
-      out = await renderSheetSvg(text, cmd.file);
+      out = await renderSheetSvg(readFile(cmd.file), cmd.file);
+    } else {
+      // the file's text and parsed JSON are dropped once the model is read
+      const { model } = await loadModelText(readFile(cmd.file), cmd.file);
+      if (cmd.command === 'solve') out = solveGraph(model);
+      else if (cmd.command === 'sweep') out = sweepGraph(model, frequencyGrid(cmd.from, cmd.to, cmd.points, cmd.log), cmd.probe);
     }
-    const body = typeof out === 'string' ? out : formatJson(out);
-    await new Promise<void>((resolve, reject) => process.stdout.write(body + '\n', (err) => (err ? reject(err) : resolve())));
+    await writeOut(typeof out === 'string' ? [out] : jsonPieces(out));
   } catch (e) {
     if (e instanceof ProbeError) fail(2, e.message);
     if (e instanceof ModelRefusal) fail(1, e.message);
