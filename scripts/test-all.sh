@@ -13,19 +13,19 @@ fi
 export PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD=1
 npm ci --no-audit --no-fund --loglevel=error
 
-mkdir -p test-results
+rm -rf reports && mkdir -p reports
 echo "== type check"
 npx tsc --noEmit
 
 echo "== unit tests"
 unit_status=0
-npx vitest run --reporter=default --reporter=json --outputFile.json=test-results/unit.json || unit_status=$?
+npx vitest run --reporter=default --reporter=json --outputFile.json=reports/unit.json || unit_status=$?
 
 e2e_status=0
 if ls e2e/*.spec.ts >/dev/null 2>&1; then
   echo "== browser tests"
-  PLAYWRIGHT_JSON_OUTPUT_NAME=test-results/e2e.json npx playwright test --reporter=list,json || e2e_status=$?
+  PLAYWRIGHT_JSON_OUTPUT_NAME=reports/e2e.json npx playwright test --reporter=list,json || e2e_status=$?
 fi
 
-node scripts/test-summary.mjs test-results/unit.json test-results/e2e.json
+node scripts/test-summary.mjs reports/unit.json reports/e2e.json
 [ "$unit_status" = 0 ] && [ "$e2e_status" = 0 ]

@@ -1,0 +1,62 @@
+/**
+ * Graph model → sheet, laid out simply: the elements stand in a row, each pin
+ * runs a short wire to a node label carrying its node's name (a ground symbol
+ * for the ground node), so equal names join the nodes.
+ */
+import type { GraphElement, GraphModel } from './graph';
+import { newId } from './ids';
+import { PART_DEFS, pinPositions } from './parts/registry';
+import { SHEET_SCHEMA, type Part, type PartKind, type Sheet } from './sheet';
+
+const KIND: Record<GraphElement['kind'], PartKind> = {
+  resistor: 'resistor', inductor: 'winding', capacitor: 'capacitor',
+  'voltage-source': 'vsource', 'current-source': 'isource', 'ideal-transformer': 'transformer',
+};
+
+function valueOf(el: GraphElement): Partial<Part> {
+  switch (el.kind) {
+    case 'resistor': return { value: el.ohms };
+    case 'inductor': return { value: el.henries, dot: el.dot ?? 'first' };
+    case 'capacitor': return { value: el.farads };
+    case 'voltage-source':
+    case 'current-source': return { value: el.magnitude, phaseDeg: el.phaseDeg };
+    case 'ideal-transformer': return { value: el.ratio };
+  }
+}
+
+export function graphToSheet(model: GraphModel, title = 'Imported graph model'): Sheet {
+  const parts: Part[] = [];
+  const wires: Sheet['wires'] = [];
+  const idOf = new Map<string, string>();
+  let x = 100;
+  const y = 220;
+  for (const el of model.elements) {
+    const kind = KIND[el.kind];
+    const def = PART_DEFS[kind];
+    const wide = kind === 'transformer';
+    if (wide) x += 30;
+    const part: Part = { id: newId('part'), kind, x, y, rot: wide ? 0 : 1, mirror: false, ref: el.id, ...def.defaults, ...valueOf(el) };
+    parts.push(part);
+    idOf.set(el.id, part.id);
+    pinPositions(part).forEach((pin, i) => {
+      const up = pin.y < y;
+      const end = { x: pin.x, y: up ? pin.y - 40 : pin.y + 40 };
+      wires.push({ id: newId('wire'), pts: [pin.x, pin.y, end.x, end.y] });
+      const node = el.nodes[i];
+      if (node === model.ground) {
+        parts.push({ id: newId('part'), kind: 'ground', x: end.x, y: end.y, rot: up ? 2 : 0, mirror: false, ref: '' });
+      } else {
+        parts.push({ id: newId('part'), kind: 'label', x: end.x, y: end.y, rot: 0, mirror: false, ref: '', name: node });
+      }
+    });
+    x += wide ? 190 : 150;
+  }
+  const couplings = (model.couplings ?? []).map((c) => ({
+    id: newId('coupling'),
+    ref: c.id,
+    windings: c.windings.map((w) => idOf.get(w) ?? w),
+    by: (c.henries !== undefined && c.k === undefined ? 'M' : 'k') as 'k' | 'M',
+    value: c.henries !== undefined && c.k === undefined ? c.henries : (c.k ?? 0),
+  }));
+  return { schema: SHEET_SCHEMA, title, frequencyHz: model.frequencyHz, amplitudes: model.amplitudes, parts, wires, couplings };
+}

@@ -1,0 +1,50 @@
+/**
+ * Numbered migrations of saved sheets: `migrations[n]` turns a version-n
+ * object into version n+1. Every version from 1 up to SHEET_VERSION - 1 has one.
+ *
+ * v1: parts carried `angle` in degrees, no mirror; no `amplitudes` (always RMS).
+ * v2: quarter turns `rot` and `mirror`; `amplitudes`; couplings stored only `k`.
+ * v3: couplings say whether their value is k or M (`by`, `value`).
+ */
+import { SHEET_SCHEMA_PREFIX, SHEET_VERSION } from './sheet';
+
+type Json = Record<string, unknown>;
+
+export const FIRST_SHEET_VERSION = 1;
+
+export const migrations: Record<number, (s: Json) => Json> = {
+  1: (s) => ({
+    ...s,
+    schema: `${SHEET_SCHEMA_PREFIX}2`,
+    amplitudes: 'rms',
+    parts: asArray(s.parts).map((p) => {
+      const { angle, ...rest } = p as Json;
+      const deg = typeof angle === 'number' ? angle : 0;
+      return { ...rest, rot: (((Math.round(deg / 90) % 4) + 4) % 4), mirror: false };
+    }),
+    couplings: asArray(s.couplings),
+  }),
+  2: (s) => ({
+    ...s,
+    schema: `${SHEET_SCHEMA_PREFIX}3`,
+    couplings: asArray(s.couplings).map((c) => {
+      const { k, ...rest } = c as Json;
+      return { ...rest, by: 'k', value: k };
+    }),
+  }),
+};
+
+function asArray(v: unknown): unknown[] {
+  return Array.isArray(v) ? v : [];
+}
+
+/** Apply migrations from `from` up to the current version. */
+export function migrate(obj: Json, from: number): Json {
+  let s = obj;
+  for (let v = from; v < SHEET_VERSION; v++) {
+    const step = migrations[v];
+    if (!step) throw new Error(`no migration from sheet version ${v}`);
+    s = step(s);
+  }
+  return s;
+}

@@ -1,0 +1,67 @@
+/** Ideal transformer, ground (IEC 60617 earth) and node label. */
+import { turns, positive, type PartDef, type Prim } from './types';
+
+function coil(x: number, dir: 1 | -1): Prim[] {
+  const out: Prim[] = [];
+  for (let i = 0; i < 4; i++) {
+    const cy = -15 + 10 * i;
+    out.push({ t: 'arc', x, y: cy, r: 5, a0: dir < 0 ? Math.PI / 2 : -Math.PI / 2, a1: dir < 0 ? (3 * Math.PI) / 2 : Math.PI / 2 });
+  }
+  return out;
+}
+
+export const transformer: PartDef = {
+  kind: 'transformer', label: 'Ideal transformer', prefix: 'T',
+  pins: [{ x: -40, y: -30 }, { x: -40, y: 30 }, { x: 40, y: -30 }, { x: 40, y: 30 }],
+  box: { x0: -40, y0: -32, x1: 40, y1: 32 }, defaultRot: 0,
+  defaults: { value: 1 },
+  fields: [{ key: 'value', label: 'Turns ratio (primary : secondary)', unit: '', check: positive('Turns ratio') }],
+  draw: () => [
+    { t: 'line', p: [-40, -30, -10, -30, -10, -20] },
+    { t: 'line', p: [-40, 30, -10, 30, -10, 20] },
+    ...coil(-10, 1),
+    { t: 'line', p: [40, -30, 10, -30, 10, -20] },
+    { t: 'line', p: [40, 30, 10, 30, 10, 20] },
+    ...coil(10, -1),
+    { t: 'line', p: [-2, -22, -2, 22] },
+    { t: 'line', p: [2, -22, 2, 22] },
+    { t: 'circle', x: -19, y: -22, r: 2.5, fill: true },
+    { t: 'circle', x: 19, y: -22, r: 2.5, fill: true },
+  ],
+  valueText: (p) => `${Number((p.value ?? 1).toPrecision(4))} : 1`,
+  toElement: (p, n) => ({ id: p.ref, kind: 'ideal-transformer', nodes: [n[0], n[1], n[2], n[3]], ratio: p.value ?? 1 }),
+};
+
+export const ground: PartDef = {
+  kind: 'ground', label: 'Ground', prefix: '',
+  pins: [{ x: 0, y: 0 }],
+  box: { x0: -12, y0: -2, x1: 12, y1: 20 }, defaultRot: 0,
+  defaults: {},
+  fields: [],
+  draw: () => [
+    { t: 'line', p: [0, 0, 0, 10] },
+    { t: 'line', p: [-12, 10, 12, 10] },
+    { t: 'line', p: [-8, 14, 8, 14] },
+    { t: 'line', p: [-4, 18, 4, 18] },
+  ],
+  valueText: () => '',
+  netName: () => 'gnd',
+};
+
+export const labelWidth = (name: string) => 14 + 7 * Math.max(1, name.length);
+
+export const label: PartDef = {
+  kind: 'label', label: 'Node label', prefix: '',
+  pins: [{ x: 0, y: 0 }],
+  box: { x0: 0, y0: -8, x1: 40, y1: 8 }, defaultRot: 0,
+  defaults: { name: 'a' },
+  fields: [],
+  draw: (p) => {
+    const w = labelWidth(p.name ?? '');
+    return [{ t: 'poly', p: [0, 0, 7, -8, w, -8, w, 8, 7, 8] }];
+  },
+  valueText: () => '',
+  netName: (p) => p.name ?? '',
+};
+
+export { turns };

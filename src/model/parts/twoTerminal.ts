@@ -1,0 +1,52 @@
+/** Resistor, winding and capacitor: two pins at (-30,0) and (30,0). */
+import { formatSI } from '../quantity';
+import { positive, turns, type PartDef } from './types';
+
+const PINS = [{ x: -30, y: 0 }, { x: 30, y: 0 }];
+
+export const resistor: PartDef = {
+  kind: 'resistor', label: 'Resistor', prefix: 'R', pins: PINS,
+  box: { x0: -30, y0: -8, x1: 30, y1: 8 }, defaultRot: 0,
+  defaults: { value: 100 },
+  fields: [{ key: 'value', label: 'Resistance', unit: 'Ω', check: positive('Resistance') }],
+  draw: (_p, style) =>
+    style === 'ieee'
+      ? [{ t: 'line', p: [-30, 0, -15, 0, -12.5, -6, -7.5, 6, -2.5, -6, 2.5, 6, 7.5, -6, 12.5, 6, 15, 0, 30, 0] }] // zigzag (IEEE 315)
+      : [
+          { t: 'line', p: [-30, 0, -15, 0] },
+          { t: 'rect', x: -15, y: -6, w: 30, h: 12 }, // rectangle (IEC 60617)
+          { t: 'line', p: [15, 0, 30, 0] },
+        ],
+  valueText: (p) => formatSI(p.value ?? 0, 'Ω', 3),
+  toElement: (p, n) => ({ id: p.ref, kind: 'resistor', nodes: [n[0], n[1]], ohms: p.value ?? 0 }),
+};
+
+export const winding: PartDef = {
+  kind: 'winding', label: 'Winding', prefix: 'L', pins: PINS,
+  box: { x0: -30, y0: -12, x1: 30, y1: 4 }, defaultRot: 1,
+  defaults: { value: 0.01, dot: 'first' },
+  fields: [{ key: 'value', label: 'Inductance', unit: 'H', check: positive('Inductance') }],
+  draw: () => [
+    { t: 'line', p: [-30, 0, -20, 0] },
+    ...turns(-20, 0),
+    { t: 'line', p: [20, 0, 30, 0] },
+  ],
+  valueText: (p) => formatSI(p.value ?? 0, 'H', 3),
+  toElement: (p, n) => ({ id: p.ref, kind: 'inductor', nodes: [n[0], n[1]], henries: p.value ?? 0, dot: p.dot ?? 'first' }),
+  dotAt: (p) => ({ x: p.dot === 'second' ? 24 : -24, y: -9 }),
+};
+
+export const capacitor: PartDef = {
+  kind: 'capacitor', label: 'Capacitor', prefix: 'C', pins: PINS,
+  box: { x0: -30, y0: -13, x1: 30, y1: 13 }, defaultRot: 0,
+  defaults: { value: 1e-6 },
+  fields: [{ key: 'value', label: 'Capacitance', unit: 'F', check: positive('Capacitance') }],
+  draw: () => [
+    { t: 'line', p: [-30, 0, -4, 0] },
+    { t: 'line', p: [-4, -12, -4, 12] },
+    { t: 'line', p: [4, -12, 4, 12] },
+    { t: 'line', p: [4, 0, 30, 0] },
+  ],
+  valueText: (p) => formatSI(p.value ?? 0, 'F', 3),
+  toElement: (p, n) => ({ id: p.ref, kind: 'capacitor', nodes: [n[0], n[1]], farads: p.value ?? 0 }),
+};
