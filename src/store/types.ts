@@ -1,0 +1,72 @@
+/** The editor's state, in slices: document (undoable), view, solve results, sheet library. */
+import type { StoreApi } from 'zustand/vanilla';
+import type { TemporalState } from 'zundo';
+import type { Fragment } from '../model/edits';
+import type { Rect, QuarterTurns } from '../model/geometry';
+import type { RefusalCulprit, SolveResult } from '../model/graph';
+import type { PartKind, Sheet } from '../model/sheet';
+import type { DerivedCircuit } from '../model/toGraph';
+
+export interface DocSlice {
+  sheet: Sheet;
+  sheetId: string;
+}
+
+export type ToolName = 'select' | 'wire' | 'place' | 'pan';
+
+export interface View { x: number; y: number; zoom: number }
+
+export interface Ghost { kind: PartKind; x: number; y: number; rot: QuarterTurns; mirror: boolean }
+
+export interface ViewSlice {
+  view: View;
+  selection: string[];
+  tool: ToolName;
+  /** a sheet shown instead of `sheet` while a drag is under way (committed on release) */
+  preview: Sheet | null;
+  ghost: Ghost | null;
+  wireDraft: number[] | null;
+  box: Rect | null;
+  notice: { text: string; tone: 'info' | 'error' } | null;
+  clipboard: Fragment | null;
+  hoverNode: string | null;
+  /** how phasors read: magnitude∠angle or rectangular */
+  readout: 'polar' | 'rect';
+  /** which standard the symbols are drawn to */
+  symbols: 'iec' | 'ieee';
+}
+
+export interface Refusal {
+  message: string;
+  culprits: RefusalCulprit[];
+  /** the circuit that was refused (to find the culprit on the sheet) */
+  circuit: DerivedCircuit | null;
+}
+
+export interface SolveSlice {
+  solve: {
+    status: 'idle' | 'solved' | 'refused';
+    /** the latest good result and the circuit it belongs to (kept, greyed, while refused) */
+    result: SolveResult | null;
+    circuit: DerivedCircuit | null;
+    refusal: Refusal | null;
+    stale: boolean;
+    /** sequence number of the edit the shown result belongs to */
+    seq: number;
+    solveMs: number;
+  };
+  /** the circuit derived from the current sheet (may be newer than the result) */
+  derived: DerivedCircuit | null;
+}
+
+export interface SheetEntry { id: string; title: string; updated: number }
+
+export interface LibrarySlice {
+  library: SheetEntry[];
+}
+
+export type EditorState = DocSlice & ViewSlice & SolveSlice & LibrarySlice;
+
+export type TrackedState = Pick<EditorState, 'sheet'>;
+
+export type EditorStore = StoreApi<EditorState> & { temporal: StoreApi<TemporalState<TrackedState>> };
