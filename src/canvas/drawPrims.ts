@@ -1,0 +1,52 @@
+/** Drawing part definitions' primitives onto a 2D canvas context. */
+import type { Prim } from '../model/parts/types';
+import type { Placement } from '../model/geometry';
+import { toSheet } from '../model/geometry';
+
+export function drawPrims(c: CanvasRenderingContext2D, pl: Placement, prims: Prim[], color: string): void {
+  c.save();
+  c.translate(pl.x, pl.y);
+  c.rotate((pl.rot * Math.PI) / 2);
+  if (pl.mirror) c.scale(-1, 1);
+  c.strokeStyle = color;
+  c.fillStyle = color;
+  for (const p of prims) {
+    switch (p.t) {
+      case 'line':
+        c.beginPath();
+        c.moveTo(p.p[0], p.p[1]);
+        for (let i = 2; i < p.p.length; i += 2) c.lineTo(p.p[i], p.p[i + 1]);
+        c.stroke();
+        break;
+      case 'poly':
+        c.beginPath();
+        c.moveTo(p.p[0], p.p[1]);
+        for (let i = 2; i < p.p.length; i += 2) c.lineTo(p.p[i], p.p[i + 1]);
+        c.closePath();
+        if (p.fill) c.fill(); else c.stroke();
+        break;
+      case 'rect':
+        c.strokeRect(p.x, p.y, p.w, p.h);
+        break;
+      case 'circle':
+        c.beginPath();
+        c.arc(p.x, p.y, p.r, 0, Math.PI * 2);
+        if (p.fill) c.fill(); else c.stroke();
+        break;
+      case 'arc':
+        c.beginPath();
+        c.arc(p.x, p.y, p.r, p.a0, p.a1);
+        c.stroke();
+        break;
+      case 'text':
+        break;
+    }
+  }
+  c.restore();
+  for (const p of prims) {
+    if (p.t !== 'text') continue;
+    const q = toSheet(pl, p.x, p.y);
+    c.font = `${p.size}px sans-serif`;
+    c.fillText(p.s, q.x, q.y);
+  }
+}

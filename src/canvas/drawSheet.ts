@@ -1,0 +1,157 @@
+/** Draws the sheet itself: grid, wires, junctions, open ends, parts, labels, couplings, selection. */
+import { GRID, type Rect } from '../model/geometry';
+import { couplingGeometry, couplingLabelBox } from '../model/hit';
+import { PART_DEFS, dotPosition, partBox } from '../model/parts/registry';
+import type { SymbolStyle } from '../model/parts/types';
+import type { Sheet } from '../model/sheet';
+import { couplingText, labelNameSpot, partLabelSpot } from '../model/drawLayout';
+import type { Topology } from '../model/topology';
+import type { View } from '../store/types';
+import { drawPrims } from './drawPrims';
+import { THEME } from './theme';
+
+export function visibleRect(v: View, width: number, height: number): Rect {
+  return { x0: -v.x / v.zoom, y0: -v.y / v.zoom, x1: (width - v.x) / v.zoom, y1: (height - v.y) / v.zoom };
+}
+
+export function drawGrid(c: CanvasRenderingContext2D, v: View, width: number, height: number): void {
+  c.fillStyle = THEME.paper;
+  c.fillRect(0, 0, width, height);
+  let step = GRID;
+  while (step * v.zoom < 9) step *= 5;
+  const r = visibleRect(v, width, height);
+  const s = Math.max(1, 1.2 * Math.min(1.4, v.zoom));
+  const x0 = Math.floor(r.x0 / step) * step;
+  const y0 = Math.floor(r.y0 / step) * step;
+  for (let x = x0; x <= r.x1; x += step) {
+    const major = Math.round(x / step) % 5 === 0;
+    c.fillStyle = major ? THEME.gridMajor : THEME.gridDot;
+    const sx = x * v.zoom + v.x;
+    for (let y = y0; y <= r.y1; y += step) {
+      if (!major && Math.round(y / step) % 5 !== 0 && v.zoom < 0.8) continue;
+      c.fillRect(sx - s / 2, y * v.zoom + v.y - s / 2, s, s);
+    }
+  }
+}
+
+export interface SheetDrawOptions {
+  selection: Set<string>;
+  topology: Topology | null;
+  culprits: Set<string>;
+  view: View;
+  visible: Rect;
+  style?: SymbolStyle;
+}
+
+export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDrawOptions): void {
+  const { view: v, visible } = o;
+  c.save();
+  c.translate(v.x, v.y);
+  c.scale(v.zoom, v.zoom);
+  c.lineCap = 'round';
+  c.lineJoin = 'round';
+  const lw = Math.max(1.4, 1 / v.zoom);
+
+  // wires
+  c.lineWidth = lw;
+  for (const w of sheet.wires) {
+    const sel = o.selection.has(w.id);
+    c.strokeStyle = sel ? THEME.select : THEME.wire;
+    c.lineWidth = sel ? lw * 2 : lw;
+    c.beginPath();
+    c.moveTo(w.pts[0], w.pts[1]);
+    for (let i = 2; i < w.pts.length; i += 2) c.lineTo(w.pts[i], w.pts[i + 1]);
+    c.stroke();
+  }
+  if (o.topology) {
+    c.fillStyle = THEME.wire;
+    for (const j of o.topology.junctions) {
+      c.beginPath();
+      c.arc(j.x, j.y, 3.2, 0, Math.PI * 2);
+      c.fill();
+    }
+    c.strokeStyle = THEME.pinOpen;
+    c.lineWidth = lw;
+    for (const e of o.topology.openEnds) {
+      c.beginPath();
+      c.arc(e.x, e.y, 3, 0, Math.PI * 2);
+      c.stroke();
+    }
+  }
+
+  // couplings: dashed chain between winding centres, k or M beside it
+  for (const cp of sheet.couplings) {
+    const g = couplingGeometry(sheet, cp);
+    const sel = o.selection.has(cp.id);
+    const bad = o.culprits.has(cp.id);
+    c.strokeStyle = bad ? THEME.error : sel ? THEME.select : THEME.coupling;
+    c.lineWidth = lw;
+    c.setLineDash([5, 4]);
+    c.beginPath();
+    for (const id of cp.windings) {
+      const w = sheet.parts.find((q) => q.id === id);
+      if (!w) continue;
+      const b = partBox(w);
+      c.moveTo(g.label.x, g.label.y + 8);
+      c.lineTo((b.x0 + b.x1) / 2, b.y0 - 2);
+    }
+    c.stroke();
+    c.setLineDash([]);
+    const text = couplingText(cp);
+    const box = couplingLabelBox(g.label);
+    c.fillStyle = sel ? '#e8f0fa' : bad ? '#fbeae8' : '#fbf3e4';
+    c.fillRect(box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0);
+    c.strokeRect(box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0);
+    c.fillStyle = bad ? THEME.error : THEME.coupling;
+    c.font = `600 10px ${THEME.font}`;
+    c.textAlign = 'center';
+    c.textBaseline = 'middle';
+    c.fillText(text, g.label.x, g.label.y);
+  }
+
+  // parts
+  c.lineWidth = lw;
+  c.textBaseline = 'alphabetic';
+  const detail = v.zoom > 0.45;
+  for (const p of sheet.parts) {
+    const box = partBox(p);
+    if (box.x1 < visible.x0 - 60 || box.x0 > visible.x1 + 60 || box.y1 < visible.y0 - 40 || box.y0 > visible.y1 + 40) continue;
+    const def = PART_DEFS[p.kind];
+    const sel = o.selection.has(p.id);
+    const bad = o.culprits.has(p.id);
+    if (sel || bad) {
+      c.fillStyle = bad ? THEME.errorFill : THEME.selectFill;
+      c.strokeStyle = bad ? THEME.error : THEME.select;
+      c.setLineDash([3, 3]);
+      c.fillRect(box.x0 - 4, box.y0 - 4, box.x1 - box.x0 + 8, box.y1 - box.y0 + 8);
+      c.strokeRect(box.x0 - 4, box.y0 - 4, box.x1 - box.x0 + 8, box.y1 - box.y0 + 8);
+      c.setLineDash([]);
+    }
+    drawPrims(c, p, def.draw(p, o.style), bad ? THEME.error : sel ? THEME.select : THEME.ink);
+    if (p.kind === 'winding') {
+      const d = dotPosition(p)!;
+      c.fillStyle = bad ? THEME.error : THEME.ink;
+      c.beginPath();
+      c.arc(d.x, d.y, 2.8, 0, Math.PI * 2);
+      c.fill();
+    }
+    if (p.kind === 'label') {
+      c.fillStyle = THEME.ink;
+      c.font = `600 10px ${THEME.mono}`;
+      c.textAlign = 'left';
+      const at = labelNameSpot(p);
+      c.fillText(p.name ?? '', at.x, at.y);
+    }
+    if (detail && def.prefix) {
+      const spot = partLabelSpot(p, box);
+      c.textAlign = spot.align;
+      c.font = `600 11px ${THEME.font}`;
+      c.fillStyle = bad ? THEME.error : THEME.label;
+      c.fillText(p.ref, spot.x, spot.y);
+      c.font = `10px ${THEME.font}`;
+      c.fillStyle = THEME.value;
+      c.fillText(def.valueText(p), spot.x, spot.y + 12);
+    }
+  }
+  c.restore();
+}

@@ -1,0 +1,22 @@
+/** Print colours of the exported sheet: dark ink on white, one calm accent per kind of reading. */
+export const PRINT = {
+  paper: '#ffffff',
+  ink: '#22303a',
+  wire: '#2f4858',
+  label: '#3d4852',
+  value: '#6b5e4a',
+  muted: '#6b7680',
+  rule: '#c5cbd0',
+  frame: '#4d5963',
+  band: '#f1f3f4',
+  pinOpen: '#b45309',
+  coupling: '#8a5a12',
+  couplingFill: '#fbf3e4',
+  current: '#0d7463',
+  voltage: '#4a4f9e',
+  tagFill: '#ffffff',
+  caution: '#9a3412',
+  cautionFill: '#fdf5ec',
+  error: '#b42318',
+  errorFill: '#fbeae8',
+} as const;

@@ -1,0 +1,197 @@
+/** The editor's frame: top bar, shelf, sheet with its convention badge, details and readings. */
+import { useEffect, useMemo, useRef } from 'react';
+import { SheetCanvas } from '../canvas/SheetCanvas';
+import { EXAMPLES } from '../model/examples';
+import { emptySheet } from '../model/sheet';
+import { formatSI } from '../model/quantity';
+import { fitView, notify } from '../store/actions';
+import { loadSheet, switchSheet, deleteStoredSheet } from '../store/sheets';
+import type { KeyValueStorage } from '../store/library';
+import { findCommand, type CommandHost } from '../tools/commands';
+import type { ToolController } from '../tools/controller';
+import type { EditorStore } from '../store/types';
+import { CommandHostContext } from './commandHost';
+import { Details } from './Details';
+import { downloadPicture, downloadSheet, readSheetFile } from './files';
+import { Notices } from './Notices';
+import { PartsShelf } from './PartsShelf';
+import { Readings } from './Readings';
+import { rawRows, readingsCsv } from './readings';
+import { EditorContext, useEditorState } from '../canvas/editorContext';
+import { TopBar } from './TopBar';
+import { preloadExpr } from './valueEntry';
+
+function isTyping(t: EventTarget | null): boolean {
+  const el = t as HTMLElement | null;
+  return !!el && (el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable);
+}
+
+export function App({ store, tools, storage }: { store: EditorStore; tools: ToolController; storage: KeyValueStorage }) {
+  const fileInput = useRef<HTMLInputElement>(null);
+  const canvasBox = useRef<HTMLDivElement>(null);
+  const host: CommandHost = useMemo(() => ({
+    store,
+    tools,
+    viewport: () => ({ width: canvasBox.current?.clientWidth ?? 800, height: canvasBox.current?.clientHeight ?? 600 }),
+    openFile: () => fileInput.current?.click(),
+    saveFile: () => {
+      downloadSheet(store.getState().sheet);
+      notify(store, 'Sheet saved as a file');
+    },
+    savePicture: () => {
+      const s = store.getState();
+      const solved = s.solve.status === 'solved' && s.solve.circuit?.source === s.sheet;
+      downloadPicture(s.sheet, solved ? s.solve.result : null, solved ? undefined : s.solve.refusal?.message ?? 'not solved yet', solved ? s.solve.circuit?.model.ground : undefined).then(
+        () => notify(store, 'Picture saved as SVG'),
+        (e) => notify(store, `Could not draw the picture: ${e instanceof Error ? e.message : String(e)}`, 'error'),
+      );
+    },
+    newSheet: () => {
+      loadSheet(store, emptySheet());
+      notify(store, 'New empty sheet (the previous one is kept under Sheets)');
+    },
+    copyReadings: () => {
+      const s = store.getState();
+      if (!s.solve.result) return notify(store, 'Nothing solved to copy yet');
+      const csv = readingsCsv(s.solve.result, rawRows(s.solve.result), s.sheet.title);
+      navigator.clipboard?.writeText(csv).then(
+        () => notify(store, 'Readings copied as CSV'),
+        () => notify(store, 'The browser did not allow copying to the clipboard', 'error'),
+      );
+    },
+  }), [store, tools]);
+
+  useEffect(() => {
+    tools.place.viewport = host.viewport;
+    const v = host.viewport();
+    fitView(store, v.width, v.height);
+  }, [store, host, tools]);
+
+  useEffect(() => {
+    preloadExpr();
+    const onKey = (e: KeyboardEvent) => {
+      if (isTyping(e.target)) return;
+      if (e.key === ' ') {
+        tools.spaceHeld = true;
+        if ((e.target as HTMLElement)?.classList?.contains('sheet-canvas')) e.preventDefault();
+        return;
+      }
+      const k = { key: e.key, shift: e.shiftKey, mod: e.ctrlKey || e.metaKey, alt: e.altKey };
+      if (tools.key(k)) {
+        e.preventDefault();
+        return;
+      }
+      const cmd = findCommand(k);
+      if (!cmd) return;
+      const targetIsButton = (e.target as HTMLElement)?.tagName === 'BUTTON';
+      if (targetIsButton && (e.key === 'Enter' || e.key === ' ')) return;
+      e.preventDefault();
+      if (cmd.enabled && !cmd.enabled(store.getState())) return;
+      cmd.run(host);
+    };
+    const onKeyUp = (e: KeyboardEvent) => {
+      if (e.key === ' ') tools.spaceHeld = false;
+    };
+    window.addEventListener('keydown', onKey);
+    window.addEventListener('keyup', onKeyUp);
+    return () => {
+      window.removeEventListener('keydown', onKey);
+      window.removeEventListener('keyup', onKeyUp);
+    };
+  }, [store, tools, host]);
+
+  const openChosen = async (file: File) => {
+    try {
+      const sheet = await readSheetFile({ text: await file.text(), name: file.name });
+      loadSheet(store, sheet);
+      const v = host.viewport();
+      fitView(store, v.width, v.height);
+      notify(store, `Opened ${file.name}`);
+    } catch (e) {
+      notify(store, `Could not open ${file.name}: ${e instanceof Error ? e.message : String(e)}. The current sheet is unchanged.`, 'error');
+    }
+  };
+
+  return (
+    <EditorContext.Provider value={{ store, tools }}>
+      <CommandHostContext.Provider value={host}>
+        <div className="app">
+          <TopBar
+            onExample={(key) => {
+              const ex = EXAMPLES.find((x) => x.key === key)!;
+              loadSheet(store, ex.make());
+              const v = host.viewport();
+              fitView(store, v.width, v.height);
+            }}
+            onSwitch={(id) => switchSheet(store, storage, id)}
+            onForget={(id) => deleteStoredSheet(store, storage, id)}
+          />
+          <PartsShelf />
+          <main className="stage" aria-label="Sheet">
+            <div className="canvas-box" ref={canvasBox}>
+              <SheetCanvas />
+              <ConventionBadge />
+              <FirstSteps />
+            </div>
+            <Notices />
+          </main>
+          <aside className="side" aria-label="Details and readings">
+            <Details />
+            <Readings />
+          </aside>
+          <input
+            ref={fileInput}
+            type="file"
+            accept=".json,.svg,application/json,image/svg+xml"
+            hidden
+            aria-label="Choose a sheet file to open"
+            data-testid="file-input"
+            onChange={(e) => {
+              const f = e.target.files?.[0];
+              e.target.value = '';
+              if (f) void openChosen(f);
+            }}
+          />
+        </div>
+      </CommandHostContext.Provider>
+    </EditorContext.Provider>
+  );
+}
+
+/** On an empty sheet: how to start, in four lines. */
+function FirstSteps() {
+  const empty = useEditorState((s) => s.sheet.parts.length === 0 && s.sheet.wires.length === 0);
+  if (!empty) return null;
+  return (
+    <div className="first-steps" role="note" aria-label="How to start">
+      <strong>An empty sheet.</strong>
+      <ol>
+        <li>Pick a part on the left (or press <kbd>1</kbd>–<kbd>8</kbd>) and click on the sheet to drop it; <kbd>R</kbd> turns it.</li>
+        <li>Press <kbd>W</kbd> and click from pin to pin to wire them; add a ground (<kbd>7</kbd>).</li>
+        <li>Click a part to set its value on the right: <code>4.7m</code>, <code>4.7 mH</code>, <code>1/(2*pi*50)</code>.</li>
+        <li>Shift-click two windings and press <kbd>K</kbd> to link them. Currents and voltages appear on the drawing as you go.</li>
+      </ol>
+    </div>
+  );
+}
+
+function ConventionBadge() {
+  const f = useEditorState((s) => s.sheet.frequencyHz);
+  const a = useEditorState((s) => s.sheet.amplitudes);
+  const status = useEditorState((s) => s.solve.status);
+  // an edit whose answer has not come back yet: the readings shown belong to the sheet before it
+  const pending = useEditorState((s) => s.solve.status === 'solved' && !!s.derived && s.solve.circuit?.source !== s.derived.source);
+  const title = useEditorState((s) => s.sheet.title);
+  const readout = useEditorState((s) => s.readout);
+  const said = status === 'solved' ? 'Solved; the readings are up to date.' : status === 'refused' ? 'Not solved; see the message under the sheet.' : '';
+  return (
+    <div className="badge" data-testid="convention" aria-label={`Frequency ${formatSI(f, 'Hz', 4)}, amplitudes ${a === 'rms' ? 'RMS' : 'peak'}`}>
+      <span>
+        <strong>{formatSI(f, 'Hz', 4)}</strong> · {a === 'rms' ? 'RMS' : 'peak'} phasors · {readout === 'polar' ? 'angles in degrees' : 'real + j imaginary'}
+        <small className="badge-sub">{title} · {new Date().toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' })} · linear model</small>
+      </span>
+      <span className={`dot-status dot-${pending ? 'pending' : status}`} title={pending ? 'solving the latest edit' : status === 'solved' ? 'solved' : status === 'refused' ? 'not solved' : 'nothing to solve'} />
+      <span className="visually-hidden" role="status">{said}</span>
+    </div>
+  );
+}

@@ -1,0 +1,167 @@
+/** The details panel: edits the selected part or coupling, or the sheet when nothing is selected. */
+import { formatEditable } from '../model/quantity';
+import { PART_DEFS } from '../model/parts/registry';
+import * as E from '../model/edits';
+import type { Part, SheetCoupling } from '../model/sheet';
+import { commit, renamePart } from '../store/actions';
+import { CommandButton } from './CommandButton';
+import { Field, quantity } from './Field';
+import { useEditor, useEditorState } from '../canvas/editorContext';
+
+export function Details() {
+  const selection = useEditorState((s) => s.selection);
+  const sheet = useEditorState((s) => s.sheet);
+  const items = selection.map((id) => sheet.parts.find((p) => p.id === id) ?? sheet.couplings.find((c) => c.id === id) ?? sheet.wires.find((w) => w.id === id)).filter(Boolean);
+  let body;
+  if (items.length === 0) body = <SheetDetails />;
+  else if (items.length > 1) body = <Several count={items.length} windings={items.filter((x) => 'kind' in x! && x.kind === 'winding').length} />;
+  else if ('kind' in items[0]!) body = <PartDetails part={items[0] as Part} />;
+  else if ('windings' in items[0]!) body = <CouplingDetails c={items[0] as SheetCoupling} />;
+  else body = <p className="muted">A wire. Drag one of its pieces sideways to reroute it (its ends stay put); Delete removes it.</p>;
+  return (
+    <section className="panel details" aria-label="Details">
+      <h2 className="panel-title">Details</h2>
+      {body}
+    </section>
+  );
+}
+
+function SheetDetails() {
+  const { store } = useEditor();
+  const sheet = useEditorState((s) => s.sheet);
+  const set = (patch: Partial<typeof sheet>) => commit(store, { ...store.getState().sheet, ...patch });
+  return (
+    <div className="form" data-testid="sheet-details">
+      <p className="muted">The sheet (select a part to edit it).</p>
+      <Field label="Title" value={sheet.title} testId="sheet-title" apply={(t) => (t.trim() ? (set({ title: t.trim() }), null) : 'A title cannot be empty')} />
+      <Field
+        label="Frequency" unit="Hz" value={formatEditable(sheet.frequencyHz, 'Hz')} testId="sheet-frequency"
+        hint="e.g. 50, 85k, 1/(2*pi*1e-3)"
+        apply={async (t) => {
+          const r = await quantity(t, 'Hz', (v) => (v >= 0 ? null : 'Frequency must be 0 Hz or more'));
+          if ('reason' in r) return r.reason;
+          set({ frequencyHz: r.value });
+          return null;
+        }}
+      />
+      <fieldset className="radio">
+        <legend>Amplitudes</legend>
+        {(['rms', 'peak'] as const).map((a) => (
+          <label key={a}>
+            <input type="radio" name="amplitudes" checked={sheet.amplitudes === a} onChange={() => set({ amplitudes: a })} /> {a === 'rms' ? 'RMS' : 'Peak'}
+          </label>
+        ))}
+      </fieldset>
+    </div>
+  );
+}
+
+function Several({ count, windings }: { count: number; windings: number }) {
+  return (
+    <div className="form">
+      <p>{count} items selected{windings ? `, ${windings} of them windings` : ''}.</p>
+      <div className="row-buttons">
+        <CommandButton id="turn" />
+        <CommandButton id="mirror" />
+        {windings >= 2 && <CommandButton id="link" />}
+        <CommandButton id="remove" />
+      </div>
+    </div>
+  );
+}
+
+function PartDetails({ part }: { part: Part }) {
+  const { store } = useEditor();
+  const def = PART_DEFS[part.kind];
+  const patch = (p: Partial<Part>) => commit(store, E.updatePart(store.getState().sheet, part.id, p));
+  return (
+    <div className="form" data-testid="part-details">
+      <p className="kind">{def.label}</p>
+      {def.prefix && <Field label="Designator" value={part.ref} testId="field-ref" apply={(t) => renamePart(store, part.id, t)} />}
+      {part.kind === 'label' && (
+        <Field label="Node name" value={part.name ?? ''} testId="field-name" hint="Labels with the same name are one node"
+          apply={(t) => (/^[A-Za-z_][A-Za-z0-9_]*$/.test(t.trim()) ? (patch({ name: t.trim() }), null) : 'Use a letter followed by letters, digits or _')} />
+      )}
+      {def.fields.map((f) => (
+        <Field
+          key={`${part.id}-${f.key}`}
+          label={f.label}
+          unit={f.unit}
+          testId={`field-${f.key}`}
+          value={formatEditable(part[f.key] ?? 0, f.unit)}
+          hint={f.key === 'value' ? 'e.g. 4.7m, 4.7 mH, 1/(2*pi*50)' : undefined}
+          apply={async (t) => {
+            const r = await quantity(t, f.unit, f.check);
+            if ('reason' in r) return r.reason;
+            patch({ [f.key]: r.value });
+            return null;
+          }}
+        />
+      ))}
+      {part.kind === 'winding' && (
+        <div className="field">
+          <span className="label">Polarity dot</span>
+          <div className="row-buttons">
+            <span className="muted">{part.dot === 'second' ? 'at the second terminal' : 'at the first terminal'}</span>
+            <CommandButton id="swap-dot" />
+          </div>
+        </div>
+      )}
+      <div className="row-buttons">
+        <CommandButton id="turn" />
+        <CommandButton id="mirror" />
+        <CommandButton id="remove" />
+      </div>
+    </div>
+  );
+}
+
+function CouplingDetails({ c }: { c: SheetCoupling }) {
+  const { store } = useEditor();
+  const sheet = useEditorState((s) => s.sheet);
+  const names = c.windings.map((w) => sheet.parts.find((p) => p.id === w)?.ref ?? '?');
+  const patch = (p: Partial<SheetCoupling>) => commit(store, E.updateCoupling(store.getState().sheet, c.id, p));
+  const two = c.windings.length === 2;
+  return (
+    <div className="form" data-testid="coupling-details">
+      <p className="kind">Magnetic link between {names.join(', ')}</p>
+      <Field label="Designator" value={c.ref} testId="field-ref" apply={(t) => renamePart(store, c.id, t)} />
+      {two && (
+        <fieldset className="radio">
+          <legend>Given as</legend>
+          <label><input type="radio" name="by" checked={c.by === 'k'} onChange={() => patch({ by: 'k', value: kFromM(sheet, c) })} /> coupling coefficient k</label>
+          <label><input type="radio" name="by" checked={c.by === 'M'} onChange={() => patch({ by: 'M', value: mutualFromK(sheet, c) })} /> mutual inductance M</label>
+        </fieldset>
+      )}
+      <Field
+        key={`${c.id}-${c.by}`}
+        label={c.by === 'k' ? 'k (0 to 1)' : 'M'}
+        unit={c.by === 'k' ? '' : 'H'}
+        testId="field-coupling"
+        value={formatEditable(c.value, c.by === 'k' ? '' : 'H')}
+        apply={async (t) => {
+          const r = await quantity(t, c.by === 'k' ? '' : 'H', c.by === 'k'
+            ? (v) => (v >= 0 && v <= 1 ? null : 'k must lie between 0 and 1 (k > 1 would create energy)')
+            : (v) => (v >= 0 ? null : 'M must be zero or more'));
+          if ('reason' in r) return r.reason;
+          patch({ value: r.value });
+          return null;
+        }}
+      />
+      <div className="row-buttons"><CommandButton id="remove" /></div>
+    </div>
+  );
+}
+
+/** M = k·sqrt(L1·L2) for the two windings (graph-model contract). */
+function mutualFromK(sheet: { parts: Part[] }, c: SheetCoupling): number {
+  const [a, b] = c.windings.map((w) => sheet.parts.find((p) => p.id === w)?.value ?? 0);
+  return c.by === 'k' ? c.value * Math.sqrt(a * b) : c.value;
+}
+
+/** k = M / sqrt(L1·L2), at most 1. */
+function kFromM(sheet: { parts: Part[] }, c: SheetCoupling): number {
+  if (c.by === 'k') return c.value;
+  const [a, b] = c.windings.map((w) => sheet.parts.find((p) => p.id === w)?.value ?? 0);
+  return a > 0 && b > 0 ? Math.min(1, c.value / Math.sqrt(a * b)) : 0.9;
+}

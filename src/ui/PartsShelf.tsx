@@ -1,0 +1,61 @@
+/** The left column: tools and the shelf of parts to place. */
+import { PART_KINDS } from '../model/sheet';
+import { CommandButton } from './CommandButton';
+import { PartIcon } from './icons';
+import { useEditorState } from '../canvas/editorContext';
+
+export function PartsShelf() {
+  const tool = useEditorState((s) => s.tool);
+  const ghostKind = useEditorState((s) => s.ghost?.kind);
+  const symbols = useEditorState((s) => s.symbols);
+  return (
+    <nav className="shelf" aria-label="Tools and parts">
+      <h2 className="panel-title">Tools</h2>
+      <div className="shelf-tools">
+        <CommandButton id="tool-pick" pressed={tool === 'select'} />
+        <CommandButton id="tool-wire" pressed={tool === 'wire'} />
+        <CommandButton id="tool-hand" pressed={tool === 'pan'} />
+      </div>
+      <h2 className="panel-title">Parts</h2>
+      <div className="shelf-parts">
+        {PART_KINDS.map((k, i) => (
+          <CommandButton key={k} id={`place-${k}`} pressed={tool === 'place' && ghostKind === k} className="part-btn">
+            <PartIcon kind={k} style={symbols} />
+            <span className="part-name">{labelOf(k)}</span>
+            <kbd>{i + 1}</kbd>
+          </CommandButton>
+        ))}
+      </div>
+      <h2 className="panel-title">Arrange</h2>
+      <div className="shelf-tools">
+        <CommandButton id="turn" />
+        <CommandButton id="mirror" />
+        <CommandButton id="swap-dot" />
+        <CommandButton id="link" />
+        <CommandButton id="duplicate" />
+        <CommandButton id="remove" />
+      </div>
+      <h2 className="panel-title">View</h2>
+      <div className="shelf-view" role="group" aria-label="Move the view">
+        <span />
+        <CommandButton id="pan-up">↑</CommandButton>
+        <span />
+        <CommandButton id="pan-left">←</CommandButton>
+        <CommandButton id="fit">⤢</CommandButton>
+        <CommandButton id="pan-right">→</CommandButton>
+        <span />
+        <CommandButton id="pan-down">↓</CommandButton>
+        <span />
+      </div>
+      <div className="shelf-tools">
+        <CommandButton id="amplitudes" />
+        <CommandButton id="readout">∠ / j</CommandButton>
+        <CommandButton id="symbols">{symbols === 'iec' ? 'IEC' : 'IEEE'} symbols</CommandButton>
+      </div>
+    </nav>
+  );
+}
+
+function labelOf(k: string): string {
+  return ({ resistor: 'Resistor', winding: 'Winding', capacitor: 'Capacitor', vsource: 'Voltage source', isource: 'Current source', transformer: 'Ideal transformer', ground: 'Ground', label: 'Node label' } as Record<string, string>)[k];
+}
