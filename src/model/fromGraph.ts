@@ -11,12 +11,14 @@ import { SHEET_SCHEMA, type Part, type PartKind, type Sheet } from './sheet';
 const KIND: Record<GraphElement['kind'], PartKind> = {
   resistor: 'resistor', inductor: 'winding', capacitor: 'capacitor',
   'voltage-source': 'vsource', 'current-source': 'isource', 'ideal-transformer': 'transformer',
+  'inductance-arm': 'arm',
 };
 
 function valueOf(el: GraphElement): Partial<Part> {
   switch (el.kind) {
     case 'resistor': return { value: el.ohms };
     case 'inductor': return { value: el.henries, dot: el.dot ?? 'first' };
+    case 'inductance-arm': return { value: el.henries };
     case 'capacitor': return { value: el.farads };
     case 'voltage-source':
     case 'current-source': return { value: el.magnitude, phaseDeg: el.phaseDeg };

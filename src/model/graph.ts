@@ -16,6 +16,12 @@ export interface InductorEl { id: string; kind: 'inductor'; nodes: [string, stri
 export interface CapacitorEl { id: string; kind: 'capacitor'; nodes: [string, string]; farads: number }
 export interface VoltageSourceEl { id: string; kind: 'voltage-source'; nodes: [string, string]; magnitude: number; phaseDeg: number }
 export interface CurrentSourceEl { id: string; kind: 'current-source'; nodes: [string, string]; magnitude: number; phaseDeg: number }
+/**
+ * Extension of the contract: an arm of an equivalent circuit (for example a
+ * T-equivalent of a coupled pair). Its inductance may be zero or negative,
+ * which is valid for analysis but is not a part one can buy.
+ */
+export interface InductanceArmEl { id: string; kind: 'inductance-arm'; nodes: [string, string]; henries: number }
 export interface IdealTransformerEl { id: string; kind: 'ideal-transformer'; nodes: [string, string, string, string]; ratio: number }
 
 export type GraphElement =
@@ -24,7 +30,8 @@ export type GraphElement =
   | CapacitorEl
   | VoltageSourceEl
   | CurrentSourceEl
-  | IdealTransformerEl;
+  | IdealTransformerEl
+  | InductanceArmEl;
 
 export type ElementKind = GraphElement['kind'];
 

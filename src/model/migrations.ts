@@ -5,6 +5,7 @@
  * v1: parts carried `angle` in degrees, no mirror; no `amplitudes` (always RMS).
  * v2: quarter turns `rot` and `mirror`; `amplitudes`; couplings stored only `k`.
  * v3: couplings say whether their value is k or M (`by`, `value`).
+ * v4: the `arm` part kind (equivalent-circuit arm); nothing to change in older files.
  */
 import { SHEET_SCHEMA_PREFIX, SHEET_VERSION } from './sheet';
 
@@ -32,6 +33,7 @@ export const migrations: Record<number, (s: Json) => Json> = {
       return { ...rest, by: 'k', value: k };
     }),
   }),
+  3: (s) => ({ ...s, schema: `${SHEET_SCHEMA_PREFIX}4` }),
 };
 
 function asArray(v: unknown): unknown[] {

@@ -3,7 +3,7 @@ import type { Amplitudes, DotEnd } from './graph';
 import type { QuarterTurns } from './geometry';
 
 export const SHEET_SCHEMA_PREFIX = 'coilwright.sheet/';
-export const SHEET_VERSION = 3;
+export const SHEET_VERSION = 4;
 export const SHEET_SCHEMA = `${SHEET_SCHEMA_PREFIX}${SHEET_VERSION}` as const;
 
 export type PartKind =
@@ -14,11 +14,16 @@ export type PartKind =
   | 'isource'
   | 'transformer'
   | 'ground'
-  | 'label';
+  | 'label'
+  /** an arm of an equivalent circuit (T-equivalent): an inductance that may be zero or negative */
+  | 'arm';
 
 export const PART_KINDS: readonly PartKind[] = [
-  'resistor', 'winding', 'capacitor', 'vsource', 'isource', 'transformer', 'ground', 'label',
+  'resistor', 'winding', 'capacitor', 'vsource', 'isource', 'transformer', 'ground', 'label', 'arm',
 ];
+
+/** The kinds offered on the parts shelf (equivalent arms come only from a T-equivalent). */
+export const SHELF_KINDS: readonly PartKind[] = PART_KINDS.filter((k) => k !== 'arm');
 
 export interface Part {
   id: string;

@@ -289,9 +289,14 @@ export function tEquivalent(model: GraphModel, couplingId: string, pair?: [strin
   };
 }
 
+/** An inductor where the value allows, otherwise an analysis-only inductance arm. */
+function arm(id: string, a: string, b: string, henries: number): GraphElement {
+  return henries > 0 ? { id, kind: 'inductor', nodes: [a, b], henries } : { id, kind: 'inductance-arm', nodes: [a, b], henries };
+}
+
 /**
  * The model with a two-winding coupling replaced by its T-equivalent drawn as
- * three inductors (possible only when every arm is positive). The arms meet at
+ * three inductors, or inductance arms where an arm is zero or negative. The arms meet at
  * a new centre node; without a shared terminal the two common ends are joined
  * by the shunt arm's far end.
  */
@@ -301,12 +306,6 @@ export function substituteTEquivalent(model: GraphModel, couplingId: string): { 
   if (c.windings.length !== 2) {
     throw new ModelRefusal(`coupling "${couplingId}" couples ${c.windings.length} windings; a T-equivalent replaces a pair`, [{ kind: 'coupling', id: couplingId }]);
   }
-  if (t.arm1 <= 0 || t.arm2 <= 0 || t.shunt <= 0) {
-    throw new ModelRefusal(
-      `coupling "${couplingId}": the T-equivalent has a zero or negative arm (L1 − M = ${t.arm1} H, L2 − M = ${t.arm2} H, M = ${t.shunt} H), which no inductor can stand for`,
-      [{ kind: 'coupling', id: couplingId }],
-    );
-  }
   const centre = uniqueNode(model, `${couplingId}_t`);
   const [id1, id2] = t.windings;
   // Without a shared terminal the two common ends become one node: this is
@@ -314,11 +313,11 @@ export function substituteTEquivalent(model: GraphModel, couplingId: string): { 
   const merge = (n: string) => (t.common === null && n === t.ports.common2 ? t.ports.common1 : n);
   const elements: GraphElement[] = [];
   for (const e of model.elements) {
-    if (e.id === id1) elements.push({ id: id1, kind: 'inductor', nodes: [t.ports.outer1, centre], henries: t.arm1 });
-    else if (e.id === id2) elements.push({ id: id2, kind: 'inductor', nodes: [merge(t.ports.outer2), centre], henries: t.arm2 });
+    if (e.id === id1) elements.push(arm(id1, t.ports.outer1, centre, t.arm1));
+    else if (e.id === id2) elements.push(arm(id2, merge(t.ports.outer2), centre, t.arm2));
     else elements.push({ ...e, nodes: e.nodes.map(merge) } as GraphElement);
   }
-  elements.push({ id: uniqueId(model, `${couplingId}_M`), kind: 'inductor', nodes: [centre, t.ports.common1], henries: t.shunt });
+  elements.push(arm(uniqueId(model, `${couplingId}_M`), centre, t.ports.common1, t.shunt));
   return {
     model: { ...model, ground: merge(model.ground), elements, couplings: (model.couplings ?? []).filter((x) => x.id !== couplingId) },
     t,

@@ -95,7 +95,8 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
   const nodeCount = n;
   const branchUnknown = new Int32Array(model.elements.length).fill(-1);
   model.elements.forEach((el, i) => {
-    const needsBranch = el.kind === 'inductor' ? form === 'dc' || coupled[i] === 1 : el.kind === 'voltage-source' || el.kind === 'ideal-transformer';
+    const needsBranch =
+      el.kind === 'inductor' ? form === 'dc' || coupled[i] === 1 : el.kind === 'voltage-source' || el.kind === 'ideal-transformer' || el.kind === 'inductance-arm';
     if (needsBranch) {
       branchUnknown[i] = n++;
       unknownOwner.push(i);
@@ -137,6 +138,7 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
       case 'capacitor':
         admittance(n0, n1, OMEGA, el.farads);
         break;
+      case 'inductance-arm':
       case 'inductor':
         if (k < 0) {
           admittance(n0, n1, INV_OMEGA, -1 / el.henries); // 1/(jωL) = −j/(ωL)

@@ -185,6 +185,7 @@ export class SolverSession {
           ir = -omega * el.farads * vi;
           ii = omega * el.farads * vr;
           break;
+        case 'inductance-arm':
         case 'inductor':
           if (k < 0) {
             // admittance form: I = V/(jωL)

@@ -193,7 +193,7 @@ function checkVoltageConstraints(model: GraphModel, topo: Topology, dc: boolean)
   model.elements.forEach((el, i) => {
     let label: string | null = null;
     if (el.kind === 'voltage-source') label = `"${el.id}"`;
-    else if (el.kind === 'inductor' && dc) label = `"${el.id}" (a short at 0 Hz)`;
+    else if ((el.kind === 'inductor' || el.kind === 'inductance-arm') && dc) label = `"${el.id}" (a short at 0 Hz)`;
     if (label === null) return;
     const a = terminals[4 * i];
     const b = terminals[4 * i + 1];

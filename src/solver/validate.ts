@@ -31,6 +31,7 @@ const elementSchemas = {
   'voltage-source': z.object({ id: idField, kind: z.literal('voltage-source'), nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
   'current-source': z.object({ id: idField, kind: z.literal('current-source'), nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
   'ideal-transformer': z.object({ id: idField, kind: z.literal('ideal-transformer'), nodes: fourNodes, ratio: positive }),
+  'inductance-arm': z.object({ id: idField, kind: z.literal('inductance-arm'), nodes: twoNodes, henries: finite }),
 } as const;
 
 const KINDS = Object.keys(elementSchemas) as (keyof typeof elementSchemas)[];

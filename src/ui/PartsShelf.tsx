@@ -1,5 +1,5 @@
 /** The left column: tools and the shelf of parts to place. */
-import { PART_KINDS } from '../model/sheet';
+import { SHELF_KINDS } from '../model/sheet';
 import { CommandButton } from './CommandButton';
 import { PartIcon } from './icons';
 import { useEditorState } from '../canvas/editorContext';
@@ -18,7 +18,7 @@ export function PartsShelf() {
       </div>
       <h2 className="panel-title">Parts</h2>
       <div className="shelf-parts">
-        {PART_KINDS.map((k, i) => (
+        {SHELF_KINDS.map((k, i) => (
           <CommandButton key={k} id={`place-${k}`} pressed={tool === 'place' && ghostKind === k} className="part-btn">
             <PartIcon kind={k} style={symbols} />
             <span className="part-name">{labelOf(k)}</span>

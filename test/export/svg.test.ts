@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EXAMPLES, seedIds, sheetToGraph } from '../../src/model';
+import { EXAMPLES, emptySheet, seedIds, sheetToGraph, SHEET_SCHEMA } from '../../src/model';
 import { at, sheetBuilder } from '../../src/model/examples/builder';
 import type { ComplexJson, SolveResult } from '../../src/model/graph';
 import { formatAngle, formatSI } from '../../src/model/quantity';
@@ -269,6 +269,14 @@ describe('other circuits', () => {
     expect(tableRows(svg).find((r) => r.name === 'R1')!.cells.p).toBe('20 W'); // P = V²/R = 100/5 (Joule)
   });
 
+  it('an empty sheet still makes a well-formed page that reads back', () => {
+    const sheet = emptySheet('Nothing yet');
+    const svg = sheetToSvg(sheet, null, OPTS);
+    expect(xmlProblem(svg)).toBeNull();
+    expect(svg).not.toMatch(/NaN|Infinity/);
+    expect(svgToSheet(svg)).toEqual(sheet);
+  });
+
   it('is pure: leaves its inputs untouched', () => {
     seedIds(3);
     const sheet = EXAMPLES[0].make();
@@ -356,7 +364,7 @@ describe('svgToSheet refuses in one line', () => {
     oneLine(() => svgToSheet(svg.replace('"schema"', '"sch')), /damaged: it is not valid JSON/); // the first "schema" is the embedded sheet's
     oneLine(() => svgToSheet(svg.replace(/<\/coilwright:sheet>[\s\S]*$/, '')), /cut short/);
     oneLine(() => svgToSheet(svg.replace('"title":"', '"title":"&bogus;')), /not valid XML character data/);
-    oneLine(() => svgToSheet(svg.replace('coilwright.sheet/3', 'coilwright.sheet/99')), /newer than this editor reads/);
+    oneLine(() => svgToSheet(svg.replace(SHEET_SCHEMA, 'coilwright.sheet/99')), /newer than this editor reads/);
   });
 
   it('reads a sheet a re-saving tool wrapped in CDATA or gave another prefix', () => {

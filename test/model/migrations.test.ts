@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { FIRST_SHEET_VERSION, migrations, parseSheetJson, SHEET_VERSION } from '../../src/model';
+import { FIRST_SHEET_VERSION, migrations, parseSheetJson, SHEET_SCHEMA, SHEET_VERSION } from '../../src/model';
 
 describe('sheet migrations', () => {
   it('have no gaps from the first version to the current one', () => {
@@ -20,7 +20,7 @@ describe('sheet migrations', () => {
       couplings: [{ id: 'coupling:a', ref: 'K1', windings: ['part:a', 'part:b'], k: 0.5 }],
     };
     const s = parseSheetJson(v1);
-    expect(s.schema).toBe('coilwright.sheet/3');
+    expect(s.schema).toBe(SHEET_SCHEMA); // migrated to the current version
     expect(s.amplitudes).toBe('rms'); // version 1 was always RMS
     expect(s.parts.map((p) => [p.rot, p.mirror])).toEqual([[1, false], [3, false]]); // 90° and 270° are one and three quarter turns
     expect(s.couplings[0]).toMatchObject({ by: 'k', value: 0.5 });
@@ -28,6 +28,6 @@ describe('sheet migrations', () => {
 
   it('bring a version 2 sheet up to date', () => {
     const s = parseSheetJson({ schema: 'coilwright.sheet/2', frequencyHz: 60, amplitudes: 'peak', parts: [], wires: [], couplings: [] });
-    expect(s).toMatchObject({ schema: 'coilwright.sheet/3', amplitudes: 'peak', frequencyHz: 60 });
+    expect(s).toMatchObject({ schema: SHEET_SCHEMA, amplitudes: 'peak', frequencyHz: 60 });
   });
 });

@@ -148,6 +148,12 @@ describe('coupled windings against closed forms', () => {
     expectClose(t.m, -0.009, 1e-12);
     expect(t.negativeArms).toEqual(['shunt']);
     expect(t.notes[0]).toMatch(/not a part you can buy/);
+    // substituted with a negative shunt arm (an analysis-only inductance arm), the ports see the same currents
+    const sub = substituteTEquivalent(m0, 'K1');
+    expect(sub.model.elements.filter((e) => e.kind === 'inductance-arm').map((e) => e.id)).toEqual(['K1_M']);
+    const a = solveGraph(m0);
+    const b = solveGraph(sub.model);
+    for (const id of ['V1', 'R']) expectComplexClose(two(b, id).current, two(a, id).current, 1e-10);
   });
 
   it('approaches the ideal transformer as k → 1 with large inductances', () => {

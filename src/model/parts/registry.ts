@@ -3,11 +3,11 @@ import { rectOfLocal, toSheet, type Point, type Rect } from '../geometry';
 import type { Part, PartKind } from '../sheet';
 import { labelWidth, ground, label, transformer } from './others';
 import { isource, vsource } from './sources';
-import { capacitor, resistor, winding } from './twoTerminal';
+import { arm, capacitor, resistor, winding } from './twoTerminal';
 import type { PartDef } from './types';
 
 export const PART_DEFS: Record<PartKind, PartDef> = {
-  resistor, winding, capacitor, vsource, isource, transformer, ground, label,
+  resistor, winding, capacitor, vsource, isource, transformer, ground, label, arm,
 };
 
 export function partDef(kind: PartKind): PartDef {

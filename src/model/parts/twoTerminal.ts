@@ -1,6 +1,6 @@
 /** Resistor, winding and capacitor: two pins at (-30,0) and (30,0). */
 import { formatSI } from '../quantity';
-import { positive, turns, type PartDef } from './types';
+import { anyFinite, positive, turns, type PartDef } from './types';
 
 const PINS = [{ x: -30, y: 0 }, { x: 30, y: 0 }];
 
@@ -34,6 +34,22 @@ export const winding: PartDef = {
   valueText: (p) => formatSI(p.value ?? 0, 'H', 3),
   toElement: (p, n) => ({ id: p.ref, kind: 'inductor', nodes: [n[0], n[1]], henries: p.value ?? 0, dot: p.dot ?? 'first' }),
   dotAt: (p) => ({ x: p.dot === 'second' ? 24 : -24, y: -9 }),
+};
+
+/** An arm of an equivalent circuit: boxed turns mark an inductance for analysis only (it may be negative). */
+export const arm: PartDef = {
+  kind: 'arm', label: 'Equivalent arm', prefix: 'Leq', pins: PINS,
+  box: { x0: -30, y0: -12, x1: 30, y1: 6 }, defaultRot: 1,
+  defaults: { value: 0.001 },
+  fields: [{ key: 'value', label: 'Inductance (may be negative)', unit: 'H', check: anyFinite() }],
+  draw: () => [
+    { t: 'line', p: [-30, 0, -20, 0] },
+    ...turns(-20, 0),
+    { t: 'line', p: [20, 0, 30, 0] },
+    { t: 'rect', x: -23, y: -10, w: 46, h: 14 },
+  ],
+  valueText: (p) => `${formatSI(p.value ?? 0, 'H', 3)} (equivalent)`,
+  toElement: (p, n) => ({ id: p.ref, kind: 'inductance-arm', nodes: [n[0], n[1]], henries: p.value ?? 0 }),
 };
 
 export const capacitor: PartDef = {
