@@ -64,7 +64,8 @@ export function titleBlock(sheet: Sheet, result: SolveResult | null, o: SvgOptio
     const half = width / 2;
     const cell = (name: string, value: string, cx: number, cls: string) => {
       out.push(label(name, cx + 2.5, cy + 2.9));
-      out.push(t(value, cx + 2.5, cy + 7, 2.7, { cls }));
+      // one line, cut to the cell
+      out.push(t(wrap(oneLine(value), half - 4, 2.7, 'sans', 1)[0] ?? '', cx + 2.5, cy + 7, 2.7, { cls }));
     };
     out.push(hline(x, x + width, cy, PRINT.frame, 0.3));
     cell('Date', o.date ?? '', x, 'tb-date');

@@ -164,7 +164,9 @@ export function drawSchematic(sheet: Sheet, circuit: DerivedCircuit, result: Sol
       ext.rect(textRect(value, spot.x, spot.y + 12, VALUE_SIZE, spot.align, 'sans'));
     }
   }
-  const couplings = sheet.couplings.map((cp) => {
+  // a coupling whose windings are all gone has nowhere to be drawn
+  const drawable = sheet.couplings.filter((cp) => cp.windings.some((id) => partsById.has(id)));
+  const couplings = drawable.map((cp) => {
     const g = couplingGeometry(sheet, cp);
     const label = couplingText(cp);
     const box = couplingLabelBox(g.label);
