@@ -1,17 +1,46 @@
-// Micro-benchmark of the complex sparse LU on an MNA-like 2-D grid.
-// Usage: node scripts/bench-lu.mjs [sizes...]   (default 1000 10000 100000)
+// Micro-benchmark of the complex sparse LU on an MNA-like 2-D grid and an RLC ladder.
+// Usage: node scripts/bench-lu.mjs [grid|ladder] [sizes...]   (default both families, 1000 10000 100000)
+// LU_SRC=/path/to/sparse/index.ts runs another version of the LU under the same conditions.
+//
+// Times are CPU time (process.cpuUsage, user + system, all threads of the process): the machine is
+// shared, so wall time would measure the neighbours. This process builds each matrix and writes it to
+// a temporary file as raw typed arrays; a fresh child process loads it and runs the LU, so that the
+// child's peak RSS (process.resourceUsage().maxRSS) above the loaded matrix is the LU's own.
+import { spawnSync } from 'node:child_process';
 import { build } from 'esbuild';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL, fileURLToPath } from 'node:url';
 
 const here = fileURLToPath(new URL('.', import.meta.url));
-const dir = mkdtempSync(join(tmpdir(), 'bench-lu-'));
-const out = join(dir, 'sparse.mjs');
-await build({ entryPoints: [join(here, '../src/solver/sparse/index.ts')], bundle: true, format: 'esm', platform: 'neutral', outfile: out, logLevel: 'error' });
-const { analyze, ComplexSparseLU } = await import(pathToFileURL(out).href);
-rmSync(dir, { recursive: true, force: true });
+const self = fileURLToPath(import.meta.url);
+const args = process.argv.slice(2);
+
+if (args[0] !== '--child') {
+  const family = args.find((a) => a === 'grid' || a === 'ladder');
+  const sizes = args.filter((a) => a !== family).map(Number);
+  const dir = mkdtempSync(join(tmpdir(), 'bench-lu-'));
+  try {
+    const out = join(dir, 'sparse.mjs');
+    await build({ entryPoints: [process.env.LU_SRC || join(here, '../src/solver/sparse/index.ts')], bundle: true, format: 'esm', platform: 'neutral', outfile: out, logLevel: 'error' });
+    for (const fam of family ? [family] : ['grid', 'ladder']) {
+      for (const N of sizes.length ? sizes : [1000, 10000, 100000]) {
+        const { pattern, values } = fam === 'grid' ? mnaGrid(N) : mnaLadder(N);
+        const file = join(dir, 'matrix.bin');
+        const n = pattern.n;
+        const nz = pattern.colPtr[n];
+        const head = new Int32Array([n, nz]);
+        writeFileSync(file, Buffer.concat([head, pattern.colPtr, pattern.rowIdx, values.re, values.im].map((a) => Buffer.from(a.buffer, a.byteOffset, a.byteLength))));
+        const r = spawnSync(process.execPath, [self, '--child', out, file, fam, String(N)], { stdio: 'inherit' });
+        if (r.status !== 0) process.exit(r.status ?? 1);
+      }
+    }
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+  process.exit(0);
+}
 
 /** Grid of admittances (5-point) plus a branch row/column with zero diagonal every `every` nodes. */
 function mnaGrid(nTarget, every = 200, seed = 1) {
@@ -95,50 +124,77 @@ function matvec(pattern, values, xr, xi) {
   return [yr, yi];
 }
 
-const now = () => performance.now();
+/** CPU milliseconds (user + system) since `c` from process.cpuUsage(). */
+const cpuSince = (c) => {
+  const d = process.cpuUsage(c);
+  return (d.user + d.system) / 1000;
+};
 const median = (a) => a.slice().sort((x, y) => x - y)[a.length >> 1];
-const args = process.argv.slice(2);
-const family = args.find((a) => a === 'grid' || a === 'ladder');
-const sizes = args.filter((a) => a !== family).map(Number);
-const families = family ? [family] : ['grid', 'ladder'];
+const MB = 2 ** 20;
 
-function once(pattern, values) {
-  const n = pattern.n;
+const [, bundle, file, fam, sizeArg] = args;
+const N = Number(sizeArg);
+const { analyze, ComplexSparseLU } = await import(pathToFileURL(bundle).href);
+const { pattern, values } = (() => {
+  const buf = readFileSync(file);
+  const [n, nz] = new Int32Array(buf.buffer.slice(buf.byteOffset, buf.byteOffset + 8));
+  let off = buf.byteOffset + 8;
+  const take = (T, len) => {
+    const a = new T(buf.buffer.slice(off, off + len * T.BYTES_PER_ELEMENT));
+    off += len * T.BYTES_PER_ELEMENT;
+    return a;
+  };
+  const colPtr = take(Int32Array, n + 1);
+  const rowIdx = take(Int32Array, nz);
+  const re = take(Float64Array, nz);
+  const im = take(Float64Array, nz);
+  return { pattern: { n, colPtr, rowIdx }, values: { re, im } };
+})();
+const n = pattern.n;
+const v2 = { re: values.re.map((x) => x * 1.01), im: values.im.slice() }; // a sweep point: other values
+const rss0 = process.memoryUsage().rss;
+const ab0 = process.memoryUsage().arrayBuffers;
+
+function once() {
   const bre = new Float64Array(n).fill(1), bim = new Float64Array(n);
-  let t0 = now();
+  let c = process.cpuUsage();
   const sym = analyze(pattern);
-  const t1 = now();
+  const a = cpuSince(c);
+  c = process.cpuUsage();
   const lu = new ComplexSparseLU(sym);
   lu.factor(values);
-  const t2 = now();
+  const f = cpuSince(c);
+  c = process.cpuUsage();
   lu.solve(bre, bim);
-  const t3 = now();
-  const v2 = { re: values.re.map((x) => x * 1.01), im: values.im.slice() };
+  const s = cpuSince(c);
   const b2 = new Float64Array(n).fill(1), c2 = new Float64Array(n);
-  const t4 = now();
+  c = process.cpuUsage();
   const ok = lu.refactor(v2);
-  const t5 = now();
+  const r = cpuSince(c);
+  c = process.cpuUsage();
   lu.solve(b2, c2);
-  const t6 = now();
+  const s2 = cpuSince(c);
   if (!ok) console.log('  refactor fell back');
-  return { lu, v2, b2, c2, a: t1 - t0, f: t2 - t1, s: t3 - t2, tot: t3 - t0, r: t5 - t4, rs: t6 - t4 };
+  return { lu, b2, c2, a, f, s, tot: a + f + s, r, rs: r + s2 };
 }
 
-for (const fam of families) {
-  for (const N of sizes.length ? sizes : [1000, 10000, 100000]) {
-    const { pattern, values } = fam === 'grid' ? mnaGrid(N) : mnaLadder(N);
-    const n = pattern.n;
-    const reps = N >= 100000 ? 3 : N >= 10000 ? 15 : 41;
-    const cold = once(pattern, values); // includes JIT warm-up for this size
-    const runs = [];
-    for (let r = 0; r < reps; r++) runs.push(once(pattern, values));
-    const { lu, v2, b2, c2 } = runs[0];
-    const [yr, yi] = matvec(pattern, v2, b2, c2);
-    let resid = 0;
-    for (let i = 0; i < n; i++) resid = Math.max(resid, Math.hypot(yr[i] - 1, yi[i]));
-    const f = (k) => median(runs.map((r) => r[k])).toFixed(2).padStart(8);
-    console.log(`${fam} n=${n} nnz(A)=${pattern.colPtr[n]} nnz(L)=${lu.nnzL} nnz(U)=${lu.nnzU} nnz(L+U-I)=${lu.nnzL + lu.nnzU - n} max|Ax-b|=${resid.toExponential(2)}`);
-    console.log(`  ms (median of ${reps}): analyze ${f('a')} factor ${f('f')} solve ${f('s')} | analyze+factor+solve ${f('tot')} | refactor ${f('r')} refactor+solve ${f('rs')} | ratio ${(median(runs.map((r) => r.tot)) / median(runs.map((r) => r.rs))).toFixed(1)}x`);
-    console.log(`  first call in this process (cold JIT): analyze ${cold.a.toFixed(1)} factor ${cold.f.toFixed(1)} solve ${cold.s.toFixed(1)}`);
-  }
+const reps = N >= 100000 ? 5 : N >= 10000 ? 15 : 41;
+const cold = once(); // includes JIT warm-up for this size
+const maxRss = process.resourceUsage().maxRSS * 1024;
+const held = process.memoryUsage().arrayBuffers - ab0; // typed arrays the first LU holds (and its right-hand sides)
+const runs = [cold];
+for (let r = 0; r < reps; r++) {
+  const run = once();
+  run.lu = run.b2 = run.c2 = null; // keep one LU (the first) for the residual check, not all of them
+  runs.push(run);
 }
+const timed = runs.slice(1);
+const { lu, b2, c2 } = cold;
+const [yr, yi] = matvec(pattern, v2, b2, c2);
+let resid = 0;
+for (let i = 0; i < n; i++) resid = Math.max(resid, Math.hypot(yr[i] - 1, yi[i]));
+const f = (k) => median(timed.map((r) => r[k])).toFixed(2).padStart(8);
+console.log(`${fam} n=${n} nnz(A)=${pattern.colPtr[n]} nnz(L)=${lu.nnzL} nnz(U)=${lu.nnzU} nnz(L+U-I)=${lu.nnzL + lu.nnzU - n} max|Ax-b|=${resid.toExponential(2)}`);
+console.log(`  CPU ms (median of ${reps}): analyze ${f('a')} factor ${f('f')} solve ${f('s')} | analyze+factor+solve ${f('tot')} | refactor ${f('r')} refactor+solve ${f('rs')} | ratio ${(median(timed.map((r) => r.tot)) / median(timed.map((r) => r.rs))).toFixed(1)}x`);
+console.log(`  first call in this process (cold JIT): analyze ${cold.a.toFixed(1)} factor ${cold.f.toFixed(1)} solve ${cold.s.toFixed(1)}`);
+console.log(`  memory of the first call: peak RSS ${(maxRss / MB).toFixed(1)} MB, ${((maxRss - rss0) / MB).toFixed(1)} MB above the loaded matrix; typed arrays held after it ${(held / MB).toFixed(1)} MB`);

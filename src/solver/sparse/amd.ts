@@ -32,12 +32,22 @@ const DENSE = 4; // set aside, ordered last
 
 /** Returns perm with perm[k] = the original index eliminated k-th. */
 export function amdOrder(pattern: CscPattern, options: AmdOptions = {}): Int32Array {
-  if (pattern.n === 0) return new Int32Array(0);
+  return amdAnalyze(pattern, options).perm;
+}
+
+/**
+ * The order of amdOrder, and `lnz`: the entries of strict L in the Cholesky factor of A + A^T in that
+ * order. Each pivot (a supervariable of f variables) with an element of external degree d adds
+ * f (f - 1) / 2 + f d; this is exact, as the element patterns of the quotient graph are. Rows set aside as
+ * dense are counted with their own entries only, so lnz may then fall short of the true count.
+ */
+export function amdAnalyze(pattern: CscPattern, options: AmdOptions = {}): { perm: Int32Array; lnz: number } {
+  if (pattern.n === 0) return { perm: new Int32Array(0), lnz: 0 };
   const dense = options.dense ?? 10;
   const limit = dense > 0 ? Math.max(16, Math.min(dense * Math.sqrt(pattern.n), options.denseMax ?? 500)) : Infinity;
   const g = new QuotientGraph(pattern, limit, options.aggressive ?? true);
   while (g.nel < g.nSparse) g.eliminate();
-  return g.order();
+  return { perm: g.order(), lnz: g.lnz + g.denseLnz };
 }
 
 /**
@@ -68,6 +78,8 @@ class QuotientGraph {
   readonly pivots: Int32Array; // pivot sequence (principal variables only)
   npiv = 0;
   nel = 0;
+  lnz = 0; // entries of strict L so far
+  readonly denseLnz: number; // the rows set aside: their own entries and a full block among them
   wflg = 1;
   stamp = 0;
   mindeg: number;
@@ -143,6 +155,7 @@ class QuotientGraph {
 
     // dense rows are set aside and ordered last
     let nDense = 0;
+    let denseLnz = 0; // entries between sparse and dense rows
     if (denseLimit < n) {
       for (let i = 0; i < n; i++) {
         if (len[i] > denseLimit) {
@@ -159,6 +172,7 @@ class QuotientGraph {
             const j = iw[p];
             if (kind[j] !== DENSE) iw[d++] = j;
           }
+          denseLnz += len[i] - (d - s);
           len[i] = d - s;
         }
       } else if (nDense === n) {
@@ -167,6 +181,7 @@ class QuotientGraph {
       }
     }
     const nSparse = n - nDense;
+    this.denseLnz = denseLnz + (nDense * (nDense - 1)) / 2;
     let mindeg = n;
     for (let i = n - 1; i >= 0; i--) {
       if (kind[i] === DENSE) continue;
@@ -402,6 +417,7 @@ class QuotientGraph {
     }
     nv[me] = nvpiv;
     degree[me] = degme;
+    this.lnz += (nvpiv * (nvpiv - 1)) / 2 + nvpiv * degme;
     wflg += lemax + 1;
     if (wflg > 0x3fffffff - n) {
       w.fill(0);

@@ -1,3 +1,3 @@
 export { SingularMatrixError, type CscPattern, type ComplexValues } from './types';
-export { amdOrder, type AmdOptions } from './amd';
+export { amdOrder, amdAnalyze, type AmdOptions } from './amd';
 export { analyze, ComplexSparseLU, type LuSymbolic, type LuOptions } from './lu';

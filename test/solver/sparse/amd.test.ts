@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { amdOrder } from '../../../src/solver/sparse/amd';
+import { amdAnalyze, amdOrder } from '../../../src/solver/sparse/amd';
 import { analyze, ComplexSparseLU } from '../../../src/solver/sparse/lu';
 import type { CscPattern } from '../../../src/solver/sparse/types';
 import { fromTriplets, gridPattern, relResidual, rng } from './helpers';
@@ -156,5 +156,53 @@ describe('amdOrder', () => {
     const ms = performance.now() - t0;
     expect(isPermutation(p, pattern.n)).toBe(true);
     expect(ms).toBeLessThan(2000); // generous: CI machines vary; scripts/bench-lu.mjs measures properly
+  });
+});
+
+/** Entries of strict L by eliminating the graph of A + A^T in the order q on a dense boolean matrix (the definition of fill). */
+function bruteForceLnz(pattern: CscPattern, q: Int32Array): number {
+  const n = pattern.n;
+  const pos = new Int32Array(n);
+  q.forEach((v, k) => (pos[v] = k));
+  const adj = Array.from({ length: n }, () => new Uint8Array(n));
+  for (let j = 0; j < n; j++) {
+    for (let p = pattern.colPtr[j]; p < pattern.colPtr[j + 1]; p++) {
+      const a = pos[pattern.rowIdx[p]];
+      const b = pos[j];
+      if (a !== b) adj[a][b] = adj[b][a] = 1;
+    }
+  }
+  let lnz = 0;
+  for (let k = 0; k < n; k++) {
+    const below: number[] = [];
+    for (let i = k + 1; i < n; i++) if (adj[k][i]) below.push(i);
+    lnz += below.length;
+    for (const a of below) for (const b of below) if (a !== b) adj[a][b] = 1; // the eliminated node's neighbours form a clique
+  }
+  return lnz;
+}
+
+describe('amdAnalyze', () => {
+  it('counts the Cholesky factor of its own order exactly (random patterns, grids, a star)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 45 }), fc.integer({ min: 1, max: 2 ** 30 }), fc.double({ min: 0.02, max: 0.3, noNaN: true }), (n, seed, density) => {
+        const r = rng(seed);
+        const pairs: Array<[number, number]> = [];
+        for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) if (i === j || r() < density) pairs.push([i, j]);
+        const pattern = patternOf(n, pairs);
+        const { perm, lnz } = amdAnalyze(pattern, { dense: 0 }); // nothing set aside: the count must be exact
+        expect([...perm]).toEqual([...amdOrder(pattern, { dense: 0 })]);
+        expect(lnz).toBe(bruteForceLnz(pattern, perm)); // source: the definition of fill, by brute force
+      }),
+      { numRuns: 100 },
+    );
+    for (const m of [1, 2, 9, 17]) {
+      const g = gridPattern(m);
+      const { perm, lnz } = amdAnalyze(g);
+      expect(lnz).toBe(bruteForceLnz(g, perm)); // same source
+    }
+    // a star: 300 leaves tied to a hub that is set aside as dense; no fill, L holds the hub's row alone
+    const star = patternOf(301, [[0, 0], ...Array.from({ length: 300 }, (_, i) => [[i + 1, i + 1], [0, i + 1], [i + 1, 0]] as Array<[number, number]>).flat()]);
+    expect(amdAnalyze(star).lnz).toBe(300); // source: 300 edges, an elimination without fill
   });
 });
