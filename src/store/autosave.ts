@@ -15,8 +15,10 @@ export function attachAutosave(store: EditorStore, storage: KeyValueStorage, del
     if (timer) clearTimeout(timer);
     timer = null;
     if (!pending) return;
-    pending = false;
     const s = store.getState();
+    // a sheet opened from a link is not written until it is kept
+    if (s.visit) return;
+    pending = false;
     try {
       const library = writeSheet(storage, s.sheetId, s.sheet);
       store.setState({ library });
@@ -25,7 +27,18 @@ export function attachAutosave(store: EditorStore, storage: KeyValueStorage, del
     }
   };
   const unsubscribe = store.subscribe((s, prev) => {
-    if (s.sheet === prev.sheet && s.sheetId === prev.sheetId) return;
+    if (s.visit) {
+      // a visit begins: an edit of the sheet before it that is still waiting is written now
+      if (!prev.visit && pending) {
+        pending = false;
+        try { store.setState({ library: writeSheet(storage, prev.sheetId, prev.sheet) }); } catch { /* reported on the next write */ }
+      }
+      return;
+    }
+    if (prev.visit) {
+      // dismissed: the sheet from before is back as it was stored; kept: written now
+      if (s.sheetId === prev.visit.previousId && s.sheet === prev.visit.previousSheet && !pending) return;
+    } else if (s.sheet === prev.sheet && s.sheetId === prev.sheetId) return;
     pending = true;
     if (delayMs <= 0) return flush();
     if (!timer) timer = setTimeout(flush, delayMs);

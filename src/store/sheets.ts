@@ -5,13 +5,14 @@ import { readSheet, removeSheet, writeSheet, type KeyValueStorage } from './libr
 import type { EditorStore } from './types';
 
 export function loadSheet(store: EditorStore, sheet: Sheet, id: string = newId('sheet')): void {
-  store.setState({ sheet, sheetId: id, selection: [], preview: null, ghost: null, wireDraft: null, box: null });
+  store.setState({ sheet, sheetId: id, selection: [], preview: null, ghost: null, wireDraft: null, box: null, visit: null });
   store.temporal.getState().clear();
 }
 
 export function switchSheet(store: EditorStore, storage: KeyValueStorage, id: string): boolean {
   const s = store.getState();
-  writeSheet(storage, s.sheetId, s.sheet);
+  // a sheet opened from a link and not kept is let go, not written
+  if (!s.visit) writeSheet(storage, s.sheetId, s.sheet);
   const sheet = readSheet(storage, id);
   if (!sheet) {
     store.setState({ notice: { text: 'That sheet could not be read from browser storage', tone: 'error' } });

@@ -65,7 +65,19 @@ export interface LibrarySlice {
   library: SheetEntry[];
 }
 
-export type EditorState = DocSlice & ViewSlice & SolveSlice & LibrarySlice;
+/** A sheet opened from a shared link: shown and solved, but not written to browser storage until the user keeps it. */
+export interface Visit {
+  from: 'link';
+  /** the sheet that was open before, brought back when the visit is dismissed */
+  previousId: string;
+  previousSheet: Sheet;
+}
+
+export interface ShareSlice {
+  visit?: Visit | null;
+}
+
+export type EditorState = DocSlice & ViewSlice & SolveSlice & LibrarySlice & ShareSlice;
 
 export type TrackedState = Pick<EditorState, 'sheet'>;
 

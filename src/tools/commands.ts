@@ -1,5 +1,6 @@
 /** Commands as data: name, label, key, tooltip, when available, what it does. */
 import * as A from '../store/actions';
+import { ANALYSIS_COMMANDS } from './analysisCommands';
 import type { EditorState, EditorStore } from '../store/types';
 import type { PartKind } from '../model/sheet';
 import type { ToolController } from './controller';
@@ -15,6 +16,8 @@ export interface CommandHost {
   savePicture: () => void;
   newSheet: () => void;
   copyReadings: () => void;
+  /** sharing and other outputs (src/ui/share): the Share panel, a link, CSV, a canvas picture, print */
+  output?: (what: 'panel' | 'link' | 'csv' | 'copy-png' | 'print') => void;
 }
 
 export interface Command {
@@ -78,6 +81,11 @@ export const COMMANDS: Command[] = [
   { id: 'save', label: 'Save file', keys: ['mod+s'], hint: 'Save this sheet as a file', run: (h) => h.saveFile() },
   { id: 'save-picture', label: 'Save picture', keys: ['mod+shift+s'], hint: 'Save the sheet with its readings, title block and cautions as an SVG picture (it opens again as a sheet)', run: (h) => h.savePicture() },
   { id: 'copy-readings', label: 'Copy readings', keys: ['mod+shift+c'], hint: 'Copy the readings table as CSV', run: (h) => h.copyReadings() },
+  { id: 'share-panel', label: 'Share and export', keys: ['alt+e'], hint: 'Paper, notes and plots for the SVG sheet; results and sweep CSV; PNG; print; a link that carries the sheet', run: (h) => h.output?.('panel') },
+  { id: 'copy-link', label: 'Copy link', keys: ['alt+l'], hint: 'Copy a link that carries this sheet: whoever opens it sees it solved', run: (h) => h.output?.('link') },
+  { id: 'save-results-csv', label: 'Save results CSV', keys: ['alt+c'], hint: 'Save every solved value (unrounded) as CSV', enabled: (s) => s.solve.status === 'solved', run: (h) => h.output?.('csv') },
+  { id: 'copy-canvas-png', label: 'Copy canvas picture', keys: ['alt+i'], hint: 'Copy the drawing as shown as a PNG picture, for quick pasting', run: (h) => h.output?.('copy-png') },
+  { id: 'print-sheet', label: 'Print sheet', keys: ['mod+p'], hint: 'Print the SVG sheet on the paper chosen under Share (the editor itself is not printed)', run: (h) => h.output?.('print') },
   {
     id: 'symbols', label: 'Symbol standard', keys: ['alt+s'], hint: 'Draw the symbols to IEC 60617 or to IEEE 315',
     run: (h) => h.store.setState({ symbols: h.store.getState().symbols === 'iec' ? 'ieee' : 'iec' }),
@@ -90,6 +98,7 @@ export const COMMANDS: Command[] = [
     id: 'amplitudes', label: 'RMS / peak', keys: ['alt+p'], hint: 'Switch the sheet between RMS and peak amplitudes',
     run: (h) => { const s = h.store.getState().sheet; A.commit(h.store, { ...s, amplitudes: s.amplitudes === 'rms' ? 'peak' : 'rms' }); },
   },
+  ...ANALYSIS_COMMANDS,
 ];
 
 export const commandById = new Map(COMMANDS.map((c) => [c.id, c]));

@@ -12,13 +12,18 @@ import type { ToolController } from '../tools/controller';
 import type { EditorStore } from '../store/types';
 import { CommandHostContext } from './commandHost';
 import { Details } from './Details';
-import { downloadPicture, downloadSheet, readSheetFile } from './files';
+import { downloadSheet, readSheetFile } from './files';
 import { Notices } from './Notices';
 import { PartsShelf } from './PartsShelf';
 import { Readings } from './Readings';
 import { rawRows, readingsCsv } from './readings';
 import { EditorContext, useEditorState } from '../canvas/editorContext';
 import { TopBar } from './TopBar';
+import { AnalysisDock, AnalysisTabs } from './analysis/AnalysisDock';
+import { CouplingInspector } from './analysis/CouplingInspector';
+import { fileProblem } from './share/importGuard';
+import { runOutput } from './share/outputs';
+import { ShareLayer } from './share/ShareLayer';
 import { preloadExpr } from './valueEntry';
 
 function isTyping(t: EventTarget | null): boolean {
@@ -38,14 +43,8 @@ export function App({ store, tools, storage }: { store: EditorStore; tools: Tool
       downloadSheet(store.getState().sheet);
       notify(store, 'Sheet saved as a file');
     },
-    savePicture: () => {
-      const s = store.getState();
-      const solved = s.solve.status === 'solved' && s.solve.circuit?.source === s.sheet;
-      downloadPicture(s.sheet, solved ? s.solve.result : null, solved ? undefined : s.solve.refusal?.message ?? 'not solved yet', solved ? s.solve.circuit?.model.ground : undefined).then(
-        () => notify(store, 'Picture saved as SVG'),
-        (e) => notify(store, `Could not draw the picture: ${e instanceof Error ? e.message : String(e)}`, 'error'),
-      );
-    },
+    savePicture: () => void runOutput(store, 'svg'),
+    output: (what) => void runOutput(store, what),
     newSheet: () => {
       loadSheet(store, emptySheet());
       notify(store, 'New empty sheet (the previous one is kept under Sheets)');
@@ -101,6 +100,8 @@ export function App({ store, tools, storage }: { store: EditorStore; tools: Tool
   }, [store, tools, host]);
 
   const openChosen = async (file: File) => {
+    const tooBig = fileProblem(file);
+    if (tooBig) return notify(store, `Could not open ${file.name}: ${tooBig}. The current sheet is unchanged.`, 'error');
     try {
       const sheet = await readSheetFile({ text: await file.text(), name: file.name });
       loadSheet(store, sheet);
@@ -134,9 +135,12 @@ export function App({ store, tools, storage }: { store: EditorStore; tools: Tool
               <FirstSteps />
             </div>
             <Notices />
+            <AnalysisTabs />
+            <AnalysisDock />
           </main>
           <aside className="side" aria-label="Details and readings">
             <Details />
+            <CouplingInspector />
             <Readings />
           </aside>
           <input
@@ -152,6 +156,7 @@ export function App({ store, tools, storage }: { store: EditorStore; tools: Tool
               if (f) void openChosen(f);
             }}
           />
+          <ShareLayer />
         </div>
       </CommandHostContext.Provider>
     </EditorContext.Provider>

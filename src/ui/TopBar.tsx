@@ -24,6 +24,7 @@ import { CommandButton } from './CommandButton';
 import { useCommandHost } from './commandHost';
 import { useEditorState } from '../canvas/editorContext';
 import type { SheetEntry } from '../store/types';
+import { SharePanel } from './share/SharePanel';
 
 export function TopBar({ onExample, onSwitch, onForget }: { onExample: (key: string) => void; onSwitch: (id: string) => void; onForget: (id: string) => void }) {
   const { open, setOpen, ref } = usePopover();
@@ -85,6 +86,7 @@ export function TopBar({ onExample, onSwitch, onForget }: { onExample: (key: str
         <CommandButton id="save" />
         <CommandButton id="save-picture" />
       </div>
+      <SharePanel />
       <KeysList />
       <div className="sheet-title" title="Sheet title (edit it in Details with nothing selected)">{title}</div>
     </header>

@@ -1,0 +1,155 @@
+/**
+ * Results and sweeps as CSV (RFC 4180: comma-separated, CRLF line ends,
+ * fields with commas, quotes or line breaks quoted). Numbers are written in
+ * JavaScript's shortest round-trip form, so a reader gets back exactly the
+ * doubles the solver produced. Comment lines start with `#`.
+ */
+import type { ComplexJson, GraphModel, SolveResult, SweepResult } from '../model/graph';
+
+const EOL = '\r\n';
+
+/** One text field: quoted when it needs to be; a leading = + - @ (read as a formula by spreadsheets) is defused with an apostrophe (common practice). */
+export function csvField(text: string): string {
+  let s = text;
+  if (/^[=+\-@\t\r]/.test(s)) s = `'${s}`;
+  return /[",\r\n]/.test(s) || s !== s.trim() ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** A number in its shortest round-trip form; '' for a missing value. */
+export function csvNumber(x: number | null | undefined): string {
+  if (x === null || x === undefined) return '';
+  if (!Number.isFinite(x)) return '';
+  return Object.is(x, -0) ? '0' : String(x);
+}
+
+const comment = (text: string) => `# ${text.replace(/[\r\n]+/g, ' ')}`;
+
+const mag = (z: ComplexJson) => Math.hypot(z.re, z.im);
+const deg = (z: ComplexJson) => (z.re === 0 && z.im === 0 ? 0 : (Math.atan2(z.im, z.re) * 180) / Math.PI);
+const phasor = (z: ComplexJson | null) => (z ? [csvNumber(z.re), csvNumber(z.im), csvNumber(mag(z)), csvNumber(deg(z))] : ['', '', '', '']);
+
+export const RESULTS_HEADER = [
+  'name', 'kind',
+  'V_re', 'V_im', 'V_mag', 'V_deg',
+  'I_re', 'I_im', 'I_mag', 'I_deg',
+  'P_W', 'Q_var',
+];
+
+/**
+ * The solved values as CSV: one row per node (voltage to the reference node)
+ * and per part (voltage across and current through in its reference
+ * direction, P and Q absorbed); an ideal transformer gives a primary and a
+ * secondary row, its P and Q on the first. Values are the solver's, unrounded.
+ */
+export function resultsCsv(model: GraphModel, result: SolveResult, title = ''): string {
+  const unit = result.amplitudes === 'rms' ? 'RMS' : 'peak';
+  const lines = [
+    comment(`Coilwright results: ${title}`),
+    comment(`${result.frequencyHz} Hz; magnitudes are ${unit} values; angles in degrees; node voltages to ${model.ground}; P and Q absorbed by each part (negative: delivered); linear idealised model`),
+    RESULTS_HEADER.join(','),
+  ];
+  for (const [name, v] of Object.entries(result.nodes)) {
+    lines.push([csvField(name), 'node', ...phasor(v), ...phasor(null), '', ''].join(','));
+  }
+  for (const el of model.elements) {
+    const r = result.elements[el.id];
+    if (!r) continue;
+    if ('current' in r) {
+      lines.push([csvField(el.id), el.kind, ...phasor(r.voltage), ...phasor(r.current), csvNumber(r.power.watts), csvNumber(r.power.vars)].join(','));
+    } else {
+      lines.push([csvField(`${el.id} primary`), el.kind, ...phasor(r.voltages[0]), ...phasor(r.currents[0]), csvNumber(r.power.watts), csvNumber(r.power.vars)].join(','));
+      lines.push([csvField(`${el.id} secondary`), el.kind, ...phasor(r.voltages[1]), ...phasor(r.currents[1]), '', ''].join(','));
+    }
+  }
+  return lines.join(EOL) + EOL;
+}
+
+/** Sweep data as the analysis views hold it: one complex series per trace, real and imaginary parts interleaved. */
+export interface SweepTable {
+  title?: string;
+  amplitudes?: 'rms' | 'peak';
+  frequenciesHz: ArrayLike<number>;
+  traces: { label: string; unit: string; values: ArrayLike<number> }[];
+}
+
+/** The solver's sweep result as a table: every node voltage, then each part's voltage and current. */
+export function sweepTableOf(sweep: SweepResult, title?: string): SweepTable {
+  const traces: SweepTable['traces'] = [];
+  const flat = (zs: ComplexJson[]) => zs.flatMap((z) => [z.re, z.im]);
+  for (const [name, zs] of Object.entries(sweep.nodes)) traces.push({ label: `V(${name})`, unit: 'V', values: flat(zs) });
+  for (const [id, r] of Object.entries(sweep.elements)) {
+    if (r.voltage && r.current) {
+      traces.push({ label: `V(${id})`, unit: 'V', values: flat(r.voltage) });
+      traces.push({ label: `I(${id})`, unit: 'A', values: flat(r.current) });
+    } else if (r.voltages && r.currents) {
+      traces.push({ label: `V(${id} primary)`, unit: 'V', values: flat(r.voltages.map((p) => p[0])) });
+      traces.push({ label: `I(${id} primary)`, unit: 'A', values: flat(r.currents.map((p) => p[0])) });
+      traces.push({ label: `V(${id} secondary)`, unit: 'V', values: flat(r.voltages.map((p) => p[1])) });
+      traces.push({ label: `I(${id} secondary)`, unit: 'A', values: flat(r.currents.map((p) => p[1])) });
+    }
+  }
+  return { title, amplitudes: sweep.amplitudes, frequenciesHz: sweep.frequenciesHz, traces };
+}
+
+/** One row per frequency; for each trace its real and imaginary parts, magnitude and angle (degrees). */
+export function sweepCsv(table: SweepTable): string {
+  const n = table.frequenciesHz.length;
+  for (const t of table.traces) {
+    if (t.values.length !== 2 * n) throw new Error(`sweep trace ${t.label} has ${t.values.length / 2} points, the sweep has ${n}`);
+  }
+  const unit = table.amplitudes === 'peak' ? 'peak' : 'RMS';
+  const head = ['f_Hz'];
+  for (const t of table.traces) {
+    const u = t.unit.replace(/[^\p{L}\p{N}.%/_-]+/gu, '') || '1';
+    for (const part of ['re', 'im', 'mag', 'deg']) head.push(`${t.label} ${part} ${part === 'deg' ? 'deg' : u}`);
+  }
+  const lines = [
+    comment(`Coilwright sweep: ${table.title ?? ''}`),
+    comment(`magnitudes are ${unit} values; angles in degrees; linear idealised model`),
+    head.map(csvField).join(','),
+  ];
+  for (let i = 0; i < n; i++) {
+    const row = [csvNumber(table.frequenciesHz[i])];
+    for (const t of table.traces) row.push(...phasor({ re: t.values[2 * i], im: t.values[2 * i + 1] }));
+    lines.push(row.join(','));
+  }
+  return lines.join(EOL) + EOL;
+}
+
+/** Parse CSV written by these functions (RFC 4180 quoting; `#` lines skipped): rows of fields. */
+export function parseCsv(text: string): string[][] {
+  const rows: string[][] = [];
+  let i = 0;
+  while (i < text.length) {
+    if (text[i] === '#') {
+      const e = text.indexOf('\n', i);
+      i = e < 0 ? text.length : e + 1;
+      continue;
+    }
+    const row: string[] = [];
+    for (;;) {
+      let field = '';
+      if (text[i] === '"') {
+        i++;
+        for (;;) {
+          if (i >= text.length) throw new Error('CSV: a quoted field is not closed');
+          if (text[i] === '"') {
+            if (text[i + 1] === '"') { field += '"'; i += 2; continue; }
+            i++;
+            break;
+          }
+          field += text[i++];
+        }
+      } else {
+        while (i < text.length && text[i] !== ',' && text[i] !== '\r' && text[i] !== '\n') field += text[i++];
+      }
+      row.push(field);
+      if (text[i] === ',') { i++; continue; }
+      if (text[i] === '\r') i++;
+      if (text[i] === '\n') i++;
+      break;
+    }
+    rows.push(row);
+  }
+  return rows;
+}

@@ -1,0 +1,30 @@
+/** Commands of the analysis views: open a view, put a T-equivalent pair back. */
+import { latestSubstitution, openView, putPairBack } from '../store/analysisActions';
+import { analysisStore } from '../store/analysisStore';
+import type { EditorState } from '../store/types';
+import type { Command } from './commands';
+
+const hasLink = (s: EditorState) => s.sheet.couplings.length > 0;
+
+export const ANALYSIS_COMMANDS: Command[] = [
+  {
+    id: 'analysis-compare', label: 'Compare dots', keys: ['c'],
+    hint: 'Show the circuit as drawn beside the same circuit with one polarity dot flipped; the sheet changes only if you accept',
+    enabled: hasLink,
+    run: (h) => {
+      const s = h.store.getState();
+      const w = s.sheet.parts.find((p) => p.kind === 'winding' && s.selection.includes(p.id) && s.sheet.couplings.some((c) => c.windings.includes(p.id)));
+      if (w) analysisStore.setState({ compareWinding: w.id });
+      openView('compare');
+    },
+  },
+  { id: 'analysis-tequiv', label: 'T-equivalent', keys: ['t'], hint: 'Arms L1 − M, L2 − M and M of a linked pair, with a port check; draw it on the sheet in place of the pair', run: () => openView('tequiv') },
+  {
+    id: 'analysis-put-back', label: 'Put pair back', keys: ['b'], hint: 'Take the T-equivalent drawn last off the sheet and put the linked pair back as it was',
+    enabled: (s) => analysisStore.getState().substitutions.some((x) => x.sheetId === s.sheetId),
+    run: (h) => { if (latestSubstitution(h.store)) putPairBack(h.store); },
+  },
+  { id: 'analysis-sweep', label: 'Frequency sweep', keys: ['f'], hint: 'Plot chosen quantities against frequency (magnitude and phase), with markers, a cursor, CSV and a slider on one value', run: () => openView('sweep') },
+  { id: 'analysis-phasors', label: 'Phasors', keys: ['g'], hint: 'Phasor diagram of chosen voltages and currents to scale, and their waveforms over two periods', run: () => openView('phasor') },
+  { id: 'analysis-power', label: 'Power balance', keys: ['e'], hint: 'P, Q, |S| and power factor of every part; totals, efficiency and the Tellegen check', run: () => openView('power') },
+];

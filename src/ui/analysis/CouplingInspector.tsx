@@ -1,0 +1,107 @@
+/** Coupling inspector: L1, L2, M and k (M from k or k from M), and the pair's state at the solved currents. */
+import { useEffect, useState } from 'react';
+import type { InspectAnswer } from '../../model/analysisMessages';
+import * as E from '../../model/edits';
+import { formatEditable, formatSI } from '../../model/quantity';
+import { commit } from '../../store/actions';
+import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { Field, quantity } from '../Field';
+import { analysisClient } from './client';
+import { polarText, rectangularText } from './format';
+import { graphCouplingId, selectedCoupling, useSolved } from './useSolved';
+import { kRangeProblem, mRangeProblem } from './couplingRange';
+import './analysis.css';
+
+export function CouplingInspector() {
+  const couplingId = useEditorState(selectedCoupling);
+  if (!couplingId) return null;
+  return <Inspector couplingId={couplingId} />;
+}
+
+function Inspector({ couplingId }: { couplingId: string }) {
+  const { store } = useEditor();
+  const sheet = useEditorState((s) => s.sheet);
+  const solved = useSolved();
+  const [answer, setAnswer] = useState<InspectAnswer | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const c = sheet.couplings.find((x) => x.id === couplingId)!;
+  const windings = c.windings.map((w) => sheet.parts.find((p) => p.id === w)!);
+  const two = windings.length === 2;
+  const [l1, l2] = [windings[0]?.value ?? 0, windings[1]?.value ?? 0];
+  const mMax = Math.sqrt(l1 * l2);
+  const k = c.by === 'k' ? c.value : mMax > 0 ? c.value / mMax : 0;
+  const m = c.by === 'M' ? c.value : c.value * mMax;
+  const gid = solved ? graphCouplingId(solved.circuit.couplingOfId, couplingId) : null;
+
+  useEffect(() => {
+    if (!solved || !gid || !two) return;
+    let live = true;
+    analysisClient()
+      .inspect(solved.model, solved.result, gid, [windings[0].ref, windings[1].ref])
+      .then((a) => live && (setAnswer(a), setError(null)), (e: Error) => live && setError(e.message));
+    return () => { live = false; };
+    // the answer belongs to the solved circuit
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [solved?.result, gid]);
+
+  const patch = (by: 'k' | 'M', value: number) => commit(store, E.updateCoupling(store.getState().sheet, couplingId, { by, value }));
+  if (!two) return <section className="panel inspector" aria-label="Coupling inspector"><p className="muted">{c.ref} links {windings.length} windings; the inspector reads pairs.</p></section>;
+  const unit = answer?.amplitudes === 'peak' ? 'peak' : 'RMS';
+  return (
+    <section className="panel inspector" aria-label="Coupling inspector" data-testid="coupling-inspector">
+      <h2 className="panel-title">Coupling inspector · {c.ref}</h2>
+      <dl className="kv">
+        <dt>L1 ({windings[0].ref})</dt><dd>{formatSI(l1, 'H', 4)}</dd>
+        <dt>L2 ({windings[1].ref})</dt><dd>{formatSI(l2, 'H', 4)}</dd>
+      </dl>
+      <div className="pair-fields">
+        <Field
+          label="k (coupling coefficient)" value={formatEditable(k, '')} testId="inspector-k"
+          hint={`0 to 1; sets M = k·√(L1·L2) = ${formatSI(m, 'H', 4)}`}
+          apply={async (t) => {
+            const r = await quantity(t, '', kRangeProblem);
+            if ('reason' in r) return r.reason;
+            patch('k', r.value);
+            return null;
+          }}
+        />
+        <Field
+          label="M (mutual inductance)" unit="H" value={formatEditable(m, 'H')} testId="inspector-m"
+          hint={`0 to √(L1·L2) = ${formatSI(mMax, 'H', 4)}; sets k = M/√(L1·L2)`}
+          apply={async (t) => {
+            const r = await quantity(t, 'H', (v) => mRangeProblem(v, l1, l2));
+            if ('reason' in r) return r.reason;
+            patch('M', r.value);
+            return null;
+          }}
+        />
+      </div>
+      {!solved ? <p className="muted">Waiting for the solve of the latest edit…</p> : error ? <p className="field-error">{error}</p> : answer && (
+        <div data-testid="inspector-state">
+          <h3 className="sub">At the solved currents ({formatSI(answer.frequencyHz, 'Hz', 4)}, {unit})</h3>
+          <dl className="kv">
+            <dt>Flux linkage λ of {answer.windings[0]}</dt><dd>{polarText(answer.flux[0], 'Wb')}</dd>
+            <dt>Flux linkage λ of {answer.windings[1]}</dt><dd>{polarText(answer.flux[1], 'Wb')}</dd>
+            <dt>Stored energy (time average)</dt><dd data-testid="inspector-energy">{formatSI(answer.energyJ, 'J', 4)}</dd>
+            <dt>The two currents</dt><dd data-testid="inspector-interaction">{answer.interaction === 'aiding' ? 'aid each other’s flux' : answer.interaction === 'opposing' ? 'oppose each other’s flux' : 'neither aid nor oppose on average (they are 90° apart, or one is zero)'}</dd>
+            <dt>Reflected into {answer.windings[0]}’s loop</dt><dd>{polarText(answer.reflected[0], 'Ω')}<br /><small>{rectangularText(answer.reflected[0], 'Ω')}</small></dd>
+            <dt>Reflected into {answer.windings[1]}’s loop</dt><dd>{polarText(answer.reflected[1], 'Ω')}<br /><small>{rectangularText(answer.reflected[1], 'Ω')}</small></dd>
+            {answer.sources.map((s) => (
+              <SourceRow key={s.id} id={s.id} z={s.z} />
+            ))}
+          </dl>
+          <p className="muted small">Reflected impedance (ωM)²/Z₂₂ with Z₂₂ the partner loop’s own impedance; it does not depend on the dots.</p>
+        </div>
+      )}
+    </section>
+  );
+}
+
+function SourceRow({ id, z }: { id: string; z: InspectAnswer['sources'][number]['z'] }) {
+  return (
+    <>
+      <dt>{id} sees</dt>
+      <dd data-testid={`inspector-zin-${id}`}>{polarText(z, 'Ω')}<br /><small>{rectangularText(z, 'Ω')}</small></dd>
+    </>
+  );
+}

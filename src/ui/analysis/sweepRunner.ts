@@ -1,0 +1,115 @@
+/** Starts, restarts and cancels sweeps in the analysis worker; the latest start wins. */
+import type { GraphModel } from '../../model/graph';
+import type { SweepQuantity } from '../../model/analysisMessages';
+import { CancelledError } from '../../store/analysisBridge';
+import { analysisStore, type SliderTarget, type SweepTrace } from '../../store/analysisStore';
+import { analysisClient } from './client';
+
+let running: { cancel: () => void } | null = null;
+
+const setSweep = (patch: Partial<ReturnType<typeof analysisStore.getState>['sweep']>) =>
+  analysisStore.setState({ sweep: { ...analysisStore.getState().sweep, ...patch } });
+
+/** The model with the slider's value put in. */
+export function withSlider(model: GraphModel, target: SliderTarget, value: number): GraphModel {
+  if (target.kind === 'coupling') {
+    return { ...model, couplings: (model.couplings ?? []).map((c) => (c.id === target.id ? { id: c.id, windings: c.windings, k: value } : c)) };
+  }
+  return {
+    ...model,
+    elements: model.elements.map((e) => {
+      if (e.id !== target.id) return e;
+      switch (e.kind) {
+        case 'resistor': return { ...e, ohms: value };
+        case 'capacitor': return { ...e, farads: value };
+        case 'inductor': case 'inductance-arm': return { ...e, henries: value };
+        case 'voltage-source': case 'current-source': return { ...e, magnitude: value };
+        default: return e;
+      }
+    }),
+  };
+}
+
+export function runSweep(model: GraphModel): void {
+  const { settings, slider } = analysisStore.getState().sweep;
+  if (!settings.traces.length) return setSweep({ status: 'failed', message: 'Add a quantity to plot first' });
+  running?.cancel();
+  const m = slider ? withSlider(model, slider.target, slider.value) : model;
+  const quantities: SweepQuantity[] = settings.traces.map((t) => t.quantity);
+  setSweep({ status: 'running', progress: 0, message: '' });
+  const job = analysisClient().sweep(m, { from: settings.from, to: settings.to, points: settings.points, log: settings.log, quantities, chunk: 50 }, (done, total) => {
+    if (running === job) setSweep({ progress: done / total });
+  });
+  running = job;
+  const shown = settings.traces;
+  job.promise.then(
+    (answer) => {
+      if (running !== job) return;
+      running = null;
+      setSweep({ status: 'done', progress: 1, answer, shown, message: '' });
+    },
+    (e: Error) => {
+      if (running !== job) return;
+      running = null;
+      if (e instanceof CancelledError) setSweep({ status: 'cancelled', message: 'Sweep cancelled; the last complete plot stays' });
+      else setSweep({ status: 'failed', message: e.message });
+    },
+  );
+}
+
+export function cancelSweep(): void {
+  running?.cancel();
+}
+
+/** Unit of a quantity, for axis and legend. */
+export function unitOf(q: SweepQuantity): string {
+  switch (q.kind) {
+    case 'node': case 'voltage': return 'V';
+    case 'current': return 'A';
+    case 'zin': return 'Ω';
+    case 'power': return 'VA';
+    case 'ratio': {
+      const a = unitOf(q.num);
+      const b = unitOf(q.den);
+      return a === b ? '' : `${a}/${b}`;
+    }
+  }
+}
+
+export function labelOf(q: SweepQuantity): string {
+  switch (q.kind) {
+    case 'node': return `V(${q.node})`;
+    case 'voltage': return `V(${q.element})`;
+    case 'current': return `I(${q.element})`;
+    case 'zin': return `Z seen by ${q.source}`;
+    case 'power': return `S into ${q.element}`;
+    case 'ratio': return `${labelOf(q.num)} / ${labelOf(q.den)}`;
+  }
+}
+
+export function traceOf(q: SweepQuantity): SweepTrace {
+  return { label: labelOf(q), quantity: q, unit: unitOf(q) };
+}
+
+/** "node:n1" ↔ quantity, for selects. */
+export function encodeQ(q: SweepQuantity): string {
+  switch (q.kind) {
+    case 'node': return `node:${q.node}`;
+    case 'zin': return `zin:${q.source}`;
+    case 'ratio': return `ratio:${encodeQ(q.num)}|${encodeQ(q.den)}`;
+    default: return `${q.kind}:${q.element}`;
+  }
+}
+
+export function decodeQ(s: string): SweepQuantity {
+  const i = s.indexOf(':');
+  const kind = s.slice(0, i);
+  const rest = s.slice(i + 1);
+  if (kind === 'node') return { kind: 'node', node: rest };
+  if (kind === 'zin') return { kind: 'zin', source: rest };
+  if (kind === 'ratio') {
+    const [a, b] = rest.split('|');
+    return { kind: 'ratio', num: decodeQ(a), den: decodeQ(b) };
+  }
+  return { kind: kind as 'current' | 'voltage' | 'power', element: rest };
+}

@@ -1,0 +1,49 @@
+/// <reference lib="webworker" />
+/**
+ * The Worker for analyses of a solved circuit and for frequency sweeps. A
+ * sweep runs in chunks; between chunks it reports progress and yields, so a
+ * cancel message can arrive and stop it.
+ */
+import type { AnalysisReply, AnalysisRequest } from '../model/analysisMessages';
+import { chunkRanges, compare, inspect, power, prepareSweep, tCheck } from './analysisTasks';
+
+declare const self: DedicatedWorkerGlobalScope;
+
+const cancelled = new Set<number>();
+const post = (r: AnalysisReply) => self.postMessage(r);
+const pause = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
+
+async function sweep(req: Extract<AnalysisRequest, { kind: 'sweep' }>) {
+  const t0 = performance.now();
+  const prepared = prepareSweep(req.model, req.spec);
+  const total = prepared.frequencies.length;
+  let lastPause = performance.now();
+  for (const [a, b] of chunkRanges(total, req.spec.chunk ?? 100)) {
+    prepared.run(a, b);
+    post({ id: req.id, type: 'progress', done: b, total });
+    // let a cancel message in every 25 ms or so (a pause per chunk would cost the timer's clamp each time)
+    if (performance.now() - lastPause > 25) {
+      await pause();
+      lastPause = performance.now();
+      if (cancelled.delete(req.id)) return post({ id: req.id, type: 'cancelled' });
+    }
+  }
+  if (cancelled.delete(req.id)) return post({ id: req.id, type: 'cancelled' });
+  post({ id: req.id, type: 'done', value: { frequenciesHz: prepared.frequencies, traces: prepared.traces.map((t) => Array.from(t)), ms: performance.now() - t0 } });
+}
+
+self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {
+  const req = ev.data;
+  try {
+    switch (req.kind) {
+      case 'cancel': cancelled.add(req.target); return;
+      case 'inspect': return post({ id: req.id, type: 'done', value: inspect(req.model, req.result, req.coupling, req.pair) });
+      case 'compare': return post({ id: req.id, type: 'done', value: compare(req.model, req.winding, req.coupling) });
+      case 'tcheck': return post({ id: req.id, type: 'done', value: tCheck(req.model, req.coupling) });
+      case 'power': return post({ id: req.id, type: 'done', value: power(req.model, req.result) });
+      case 'sweep': return await sweep(req);
+    }
+  } catch (e) {
+    post({ id: req.id, type: 'failed', message: (e instanceof Error ? e.message : String(e)).split('\n')[0] });
+  }
+};
