@@ -86,6 +86,15 @@ function Inspector({ couplingId }: { couplingId: string }) {
             <dt>The two currents</dt><dd data-testid="inspector-interaction">{answer.interaction === 'aiding' ? 'aid each other’s flux' : answer.interaction === 'opposing' ? 'oppose each other’s flux' : 'neither aid nor oppose on average (they are 90° apart, or one is zero)'}</dd>
             <dt>Reflected into {answer.windings[0]}’s loop</dt><dd>{polarText(answer.reflected[0], 'Ω')}<br /><small>{rectangularText(answer.reflected[0], 'Ω')}</small></dd>
             <dt>Reflected into {answer.windings[1]}’s loop</dt><dd>{polarText(answer.reflected[1], 'Ω')}<br /><small>{rectangularText(answer.reflected[1], 'Ω')}</small></dd>
+            {answer.connection && (
+              <>
+                <dt>Connected in {answer.connection.kind}, {answer.connection.sense}</dt>
+                <dd data-testid="inspector-connection">
+                  L = {formatSI(answer.connection.inductance, 'H', 4)} ({answer.connection.kind === 'series' ? `L1 + L2 ${answer.connection.sense === 'aiding' ? '+' : '−'} 2M` : `(L1·L2 − M²)/(L1 + L2 ${answer.connection.sense === 'aiding' ? '−' : '+'} 2M)`});
+                  {' '}{answer.connection.sense === 'aiding' ? 'opposing' : 'aiding'} would give {formatSI(answer.connection.otherSense, 'H', 4)}
+                </dd>
+              </>
+            )}
             {answer.sources.map((s) => (
               <SourceRow key={s.id} id={s.id} z={s.z} />
             ))}

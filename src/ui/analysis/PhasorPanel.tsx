@@ -74,8 +74,13 @@ export function PhasorPanel() {
             const y = (-p.z.im / s) * R;
             const c = TRACE_COLOURS[i % TRACE_COLOURS.length];
             const ang = cdeg(p.z);
+            // the angle, marked by an arc from the real axis (counter-clockwise positive)
+            const ar = 16 + 7 * i;
+            const a = (ang * Math.PI) / 180;
+            const arc = Math.abs(ang) < 0.5 ? '' : `M${ar},0 A${ar},${ar} 0 0 ${ang > 0 ? 0 : 1} ${ar * Math.cos(a)},${-ar * Math.sin(a)}`;
             return (
               <g key={p.key} data-label={p.label} data-angle={ang}>
+                {arc && <path d={arc} fill="none" stroke={c} strokeWidth={1} opacity={0.7} />}
                 <line x1={0} y1={0} x2={x} y2={y} stroke={c} strokeWidth={2} strokeDasharray={p.unit === 'A' ? '5 3' : undefined} markerEnd={`url(#ph-head-${i})`} />
                 <text x={x * 1.06} y={y * 1.06} fontSize={10} fill={c} textAnchor={x < 0 ? 'end' : 'start'}>{p.label} ∠{formatAngle(ang)}</text>
               </g>

@@ -5,6 +5,12 @@ import { formatSI } from '../../model/quantity';
 import { analysisClient } from './client';
 import { useSolved } from './useSolved';
 
+/** P or Q below a billionth of |S| is rounding: shown as 0. */
+function clean<T extends { watts: number; vars: number; va: number }>(r: T): T {
+  const tiny = 1e-9 * r.va;
+  return { ...r, watts: Math.abs(r.watts) < tiny ? 0 : r.watts, vars: Math.abs(r.vars) < tiny ? 0 : r.vars };
+}
+
 export function PowerPanel() {
   const solved = useSolved();
   const [answer, setAnswer] = useState<PowerAnswer | null>(null);
@@ -34,7 +40,7 @@ export function PowerPanel() {
         <table className="data" data-testid="power-table">
           <thead><tr><th scope="col">Part</th><th scope="col">P</th><th scope="col">Q</th><th scope="col">|S|</th><th scope="col">pf</th></tr></thead>
           <tbody>
-            {answer.rows.map((r) => (
+            {answer.rows.map((r) => clean(r)).map((r) => (
               <tr key={r.id} data-id={r.id} data-watts={r.watts}>
                 <th scope="row">{r.id}</th>
                 <td className="num">{formatSI(r.watts, 'W', 4)}</td>
