@@ -1,17 +1,16 @@
 /** Sheet files: save as our JSON, open a sheet or a graph-model file; anything else is refused with a reason. */
 import { graphToSheet } from '../model/fromGraph';
 import { isGraphJson, parseSheetJson } from '../model/parseSheet';
-import type { SolveResult } from '../model/graph';
 import type { Sheet } from '../model/sheet';
-import { version as APP_VERSION } from '../../package.json';
 
 export function sheetFileName(sheet: Sheet): string {
   const base = sheet.title.trim().replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'sheet';
   return `${base}.coilwright.json`;
 }
 
-function download(name: string, text: string, type: string): void {
-  const url = URL.createObjectURL(new Blob([text], { type }));
+/** Hands text or a blob to the browser as a download. */
+export function download(name: string, data: string | Blob, type: string): void {
+  const url = URL.createObjectURL(typeof data === 'string' ? new Blob([data], { type }) : data);
   const a = document.createElement('a');
   a.href = url;
   a.download = name;
@@ -23,13 +22,6 @@ function download(name: string, text: string, type: string): void {
 
 export function downloadSheet(sheet: Sheet): void {
   download(sheetFileName(sheet), JSON.stringify(sheet, null, 2), 'application/json');
-}
-
-/** The annotated sheet as an SVG picture (the export room draws it; the sheet rides along inside so the picture opens again). */
-export async function downloadPicture(sheet: Sheet, result: SolveResult | null, unsolvedReason?: string, groundName?: string): Promise<void> {
-  const { sheetToSvg } = await import('../export');
-  const svg = sheetToSvg(sheet, result, { date: new Date().toISOString().slice(0, 10), version: APP_VERSION, unsolvedReason, groundName });
-  download(sheetFileName(sheet).replace(/\.coilwright\.json$/, '.svg'), svg, 'image/svg+xml');
 }
 
 /** Read the text of a chosen file as a sheet; throws an Error with a one-line message. */

@@ -8,23 +8,13 @@ import { sheetLink } from '../../model/link';
 import type { Sheet } from '../../model/sheet';
 import { notify } from '../../store/actions';
 import type { EditorState, EditorStore } from '../../store/types';
-import { downloadSheet, sheetFileName } from '../files';
+import { download, downloadSheet, sheetFileName } from '../files';
 import { analysisOutputs } from './analysisHook';
 import { plotsOnScreen, plotsShown, sweepFromAnalysisStore } from './analysisScreen';
 import { shareSettings } from './settings';
 
 export type OutputKind = 'panel' | 'link' | 'svg' | 'csv' | 'sweep-csv' | 'png' | 'copy-png' | 'print' | 'file';
 
-export function download(name: string, data: string | Blob, type: string): void {
-  const url = URL.createObjectURL(typeof data === 'string' ? new Blob([data], { type }) : data);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = name;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 1000);
-}
 
 const baseName = (sheet: Sheet) => sheetFileName(sheet).replace(/\.coilwright\.json$/, '');
 
