@@ -1,4 +1,4 @@
-import type { GraphModel } from '../model/graph';
+import type { GraphModel, InductorEl } from '../model/graph';
 import type { CscPattern } from './sparse/types';
 import type { Topology } from './topology';
 import type { Mutual } from './inductance';
@@ -18,6 +18,108 @@ import type { Mutual } from './inductance';
  */
 export type MnaForm = 'ac' | 'dc';
 
+/** One row of Γ = L⁻¹: the partner windings (element indices, itself included) and their entries. */
+export interface GammaRow {
+  others: number[];
+  gamma: number[];
+}
+
+/**
+ * In the 'ac' form, inductors need no branch current when their (dot-signed)
+ * inductance matrix can be inverted safely: the nodal approach stamps
+ * Γ = L⁻¹ as the admittance Γ/(jω). An uncoupled inductor is the 1×1 case
+ * (Γ = 1/L). A group of coupled windings whose matrix is near singular (k
+ * close to 1, where Γ would lose precision) keeps its branch currents.
+ * Equivalence of the two forms: V = jωL·I ⇔ I = L⁻¹·V/(jω) (standard).
+ */
+function reciprocalInductances(model: GraphModel, mutuals: Mutual[]): Map<number, GammaRow> {
+  const out = new Map<number, GammaRow>();
+  const partners = new Map<number, Mutual[]>();
+  for (const mu of mutuals) {
+    if (!partners.has(mu.a)) partners.set(mu.a, []);
+    if (!partners.has(mu.b)) partners.set(mu.b, []);
+    partners.get(mu.a)!.push(mu);
+    partners.get(mu.b)!.push(mu);
+  }
+  const seen = new Set<number>();
+  model.elements.forEach((el, i) => {
+    if (el.kind !== 'inductor') return;
+    if (!partners.has(i)) {
+      out.set(i, { others: [i], gamma: [1 / el.henries] });
+      return;
+    }
+    if (seen.has(i)) return;
+    // the group of windings linked to i through couplings
+    const group: number[] = [];
+    const stack = [i];
+    seen.add(i);
+    while (stack.length) {
+      const w = stack.pop()!;
+      group.push(w);
+      for (const mu of partners.get(w)!) {
+        const o = mu.a === w ? mu.b : mu.a;
+        if (!seen.has(o)) {
+          seen.add(o);
+          stack.push(o);
+        }
+      }
+    }
+    const n = group.length;
+    if (n > 64) return; // large groups keep branch currents (dense inverse not worth it)
+    const pos = new Map(group.map((e, t) => [e, t]));
+    const l = new Float64Array(n * n);
+    group.forEach((e, t) => (l[t * n + t] = (model.elements[e] as InductorEl).henries));
+    for (const w of group) {
+      for (const mu of partners.get(w)!) {
+        if (mu.a !== w) continue;
+        const a = pos.get(mu.a)!;
+        const b = pos.get(mu.b)!;
+        l[a * n + b] += mu.m;
+        l[b * n + a] += mu.m;
+      }
+    }
+    const gamma = invertWellConditioned(l, n);
+    if (!gamma) return;
+    group.forEach((e, t) => out.set(e, { others: group, gamma: Array.from(gamma.subarray(t * n, t * n + n)) }));
+  });
+  return out;
+}
+
+/**
+ * Inverse of a symmetric positive definite matrix, or null when its
+ * unit-diagonal scaling has a Cholesky pivot below 0.05 (for a pair: k above
+ * about 0.975), where the inverse would lose too many digits.
+ */
+function invertWellConditioned(l: Float64Array, n: number): Float64Array | null {
+  const d = new Float64Array(n);
+  for (let t = 0; t < n; t++) d[t] = Math.sqrt(l[t * n + t]);
+  const a = new Float64Array(n * n);
+  for (let r = 0; r < n; r++) for (let c = 0; c < n; c++) a[r * n + c] = l[r * n + c] / (d[r] * d[c]);
+  // Gauss-Jordan on the scaled matrix (SPD: no pivoting needed), checking pivots
+  const inv = new Float64Array(n * n);
+  for (let t = 0; t < n; t++) inv[t * n + t] = 1;
+  for (let p = 0; p < n; p++) {
+    const piv = a[p * n + p];
+    if (!(piv > 0.05)) return null;
+    for (let c = 0; c < n; c++) {
+      a[p * n + c] /= piv;
+      inv[p * n + c] /= piv;
+    }
+    for (let r = 0; r < n; r++) {
+      if (r === p) continue;
+      const f = a[r * n + p];
+      if (f === 0) continue;
+      for (let c = 0; c < n; c++) {
+        a[r * n + c] -= f * a[p * n + c];
+        inv[r * n + c] -= f * inv[p * n + c];
+      }
+    }
+  }
+  // undo the scaling: L⁻¹ = D⁻¹·A⁻¹·D⁻¹
+  for (let r = 0; r < n; r++) for (let c = 0; c < n; c++) inv[r * n + c] /= d[r] * d[c];
+  return inv;
+}
+
 export interface MnaSystem {
   n: number;
   pattern: CscPattern;
@@ -28,6 +130,8 @@ export interface MnaSystem {
   /** imaginary part times ω ('ac' form only) */
   uIm: Float64Array;
   form: MnaForm;
+  /** element -> its row of the reciprocal inductance matrix Γ = L⁻¹, for inductors stamped as admittances */
+  reciprocal: Map<number, GammaRow>;
   rhsRe: Float64Array;
   rhsIm: Float64Array;
   /** node index -> unknown index, −1 for reference nodes */
@@ -80,8 +184,7 @@ class StampList {
 }
 
 export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], form: MnaForm = 'dc'): MnaSystem {
-  const coupled = new Uint8Array(model.elements.length);
-  for (const mu of mutuals) coupled[mu.a] = coupled[mu.b] = 1;
+  const reciprocal = form === 'ac' ? reciprocalInductances(model, mutuals) : new Map<number, GammaRow>();
   const nNodes = topo.nodeNames.length;
   const nodeUnknown = new Int32Array(nNodes).fill(-1);
   const unknownOwner: number[] = [];
@@ -96,7 +199,7 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
   const branchUnknown = new Int32Array(model.elements.length).fill(-1);
   model.elements.forEach((el, i) => {
     const needsBranch =
-      el.kind === 'inductor' ? form === 'dc' || coupled[i] === 1 : el.kind === 'voltage-source' || el.kind === 'ideal-transformer' || el.kind === 'inductance-arm';
+      el.kind === 'inductor' ? !reciprocal.has(i) : el.kind === 'voltage-source' || el.kind === 'ideal-transformer' || el.kind === 'inductance-arm';
     if (needsBranch) {
       branchUnknown[i] = n++;
       unknownOwner.push(i);
@@ -139,14 +242,28 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
         admittance(n0, n1, OMEGA, el.farads);
         break;
       case 'inductance-arm':
-      case 'inductor':
-        if (k < 0) {
-          admittance(n0, n1, INV_OMEGA, -1 / el.henries); // 1/(jωL) = −j/(ωL)
+      case 'inductor': {
+        const row = reciprocal.get(i);
+        if (row) {
+          // I_i = Σ_j Γ_ij·V_j / (jω): a (multi-port) admittance −jΓ/ω between the windings' terminals
+          for (let t = 0; t < row.others.length; t++) {
+            const o2 = 4 * row.others[t];
+            const ua = nodeUnknown[n0];
+            const ub = nodeUnknown[n1];
+            const uc = nodeUnknown[topo.terminals[o2]];
+            const ud = nodeUnknown[topo.terminals[o2 + 1]];
+            const g = -row.gamma[t];
+            st.add(ua, uc, INV_OMEGA, g);
+            st.add(ua, ud, INV_OMEGA, -g);
+            st.add(ub, uc, INV_OMEGA, -g);
+            st.add(ub, ud, INV_OMEGA, g);
+          }
           break;
         }
         branch(k, n0, n1, 1);
         st.add(k, k, OMEGA, -el.henries); // V_a − V_b − jωL·I = 0
         break;
+      }
       case 'voltage-source': {
         branch(k, n0, n1, 1);
         const ph = (el.phaseDeg * Math.PI) / 180;
@@ -181,6 +298,7 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
   for (const mu of mutuals) {
     const ka = branchUnknown[mu.a];
     const kb = branchUnknown[mu.b];
+    if (ka < 0 || kb < 0) continue; // stamped through Γ above
     st.add(ka, kb, OMEGA, -mu.m);
     st.add(kb, ka, OMEGA, -mu.m);
   }
@@ -196,7 +314,7 @@ export function buildMna(model: GraphModel, topo: Topology, mutuals: Mutual[], f
     u < nodeCount
       ? { kind: 'node' as const, id: topo.nodeNames[unknownOwner[u]] }
       : { kind: 'element' as const, id: model.elements[unknownOwner[u]].id };
-  return { n, pattern, cRe, wIm, uIm, form, rhsRe, rhsIm, nodeUnknown, branchUnknown, unknownLabel };
+  return { n, pattern, cRe, wIm, uIm, form, reciprocal, rhsRe, rhsIm, nodeUnknown, branchUnknown, unknownLabel };
 }
 
 /** Triplets to CSC with sorted, unique rows per column; slotOf maps each triplet to its entry. */

@@ -188,9 +188,17 @@ export class SolverSession {
         case 'inductance-arm':
         case 'inductor':
           if (k < 0) {
-            // admittance form: I = V/(jωL)
-            ir = vi / (omega * el.henries);
-            ii = -vr / (omega * el.henries);
+            // admittance form: I_i = Σ_j Γ_ij·V_j / (jω)
+            const row = mna.reciprocal.get(i)!;
+            let sr = 0;
+            let si = 0;
+            for (let t = 0; t < row.others.length; t++) {
+              const o2 = 4 * row.others[t];
+              sr += row.gamma[t] * (sol.vRe[nd[o2]] - sol.vRe[nd[o2 + 1]]);
+              si += row.gamma[t] * (sol.vIm[nd[o2]] - sol.vIm[nd[o2 + 1]]);
+            }
+            ir = si / omega;
+            ii = -sr / omega;
             break;
           }
           ir = sol.xRe[k];

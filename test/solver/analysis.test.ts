@@ -161,10 +161,18 @@ describe('sessions across edits', () => {
   it('a wiring edit starts a new analysis', () => {
     const first = new SolverSession(m0);
     first.solveAt(50);
-    const rewired = { ...m0, elements: [...m0.elements, { id: 'C1', kind: 'capacitor' as const, nodes: ['b', 'c'] as [string, string], farads: 1e-6 }] };
+    const rewired = {
+      ...m0,
+      elements: [
+        ...m0.elements,
+        { id: 'C1', kind: 'capacitor' as const, nodes: ['b', 'x'] as [string, string], farads: 1e-6 },
+        { id: 'R3', kind: 'resistor' as const, nodes: ['x', 'gnd'] as [string, string], ohms: 5 },
+      ],
+    };
     const next = new SolverSession(rewired, first);
     expect(next.reuses(first)).toBe(false);
     const fresh = solveGraph(rewired);
     expectComplexClose(next.solveAt(50).nodes.c, fresh.nodes.c, 1e-12);
+    expectComplexClose(next.solveAt(50).nodes.x, fresh.nodes.x, 1e-12);
   });
 });
