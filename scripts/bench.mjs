@@ -95,7 +95,7 @@ function run(cmd, args, { stdoutFile, timeoutMs }) {
   const capped = ['timeout', '-s', 'KILL', String(Math.ceil(timeoutMs / 1000)), cmd, ...args];
   const [exe, exeArgs] = useTime ? ['/usr/bin/time', ['-f', '%M', '-o', rssFile, ...capped]] : [capped[0], capped.slice(1)];
   const t = now();
-  const r = spawnSync(exe, exeArgs, { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 1 << 30, timeout: timeoutMs + 20000, killSignal: 'SIGKILL' });
+  const r = spawnSync(exe, exeArgs, { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 1 << 30, timeout: Math.ceil(timeoutMs + 20000), killSignal: 'SIGKILL' });
   const ms = now() - t;
   if (r.error?.code === 'ETIMEDOUT' || r.signal || r.status === 137 || r.status === 124) return { ms, timedOut: true };
   if (stdoutFile) writeFileSync(stdoutFile, r.stdout ?? '');
