@@ -1,5 +1,8 @@
 import { defineConfig } from '@playwright/test';
 
+// E2E_PORT lets two checkouts run their browser tests side by side without reusing each other's server.
+const port = Number(process.env.E2E_PORT ?? 4178);
+
 export default defineConfig({
   testDir: 'e2e',
   outputDir: 'test-results',
@@ -9,7 +12,7 @@ export default defineConfig({
   retries: 0,
   reporter: [['list']],
   use: {
-    baseURL: 'http://localhost:4178',
+    baseURL: `http://localhost:${port}`,
     viewport: { width: 1440, height: 860 },
     acceptDownloads: true,
     screenshot: 'only-on-failure',
@@ -19,8 +22,8 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: 'npm run build && npx vite preview --port 4178 --strictPort',
-    url: 'http://localhost:4178',
+    command: `npm run build && npx vite preview --port ${port} --strictPort`,
+    url: `http://localhost:${port}`,
     reuseExistingServer: !process.env.CI,
     timeout: 120_000,
   },
