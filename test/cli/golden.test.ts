@@ -35,7 +35,7 @@ for (const f of ['current-transformer-burden', 'isolation-transformer-230v', 'wi
   cases.push({ name: `solve-sheet-${f}`, args: ['solve', rel('examples', 'sheets', `${f}.json`)] });
   cases.push({ name: `sweep-graph-${f}`, args: ['sweep', rel('examples', 'graphs', `${f}.json`), '--from', '10', '--to', '100000', '--points', '25', '--log'] });
 }
-cases.push({ name: 'sweep-ladder-200', args: ['sweep', join(fixtures, 'ladder-200.json'), '--from', '10', '--to', '100000', '--points', '20', '--log', '--probe', 'a50,Vin,L5,R99'] });
+cases.push({ name: 'sweep-ladder-200', args: ['sweep', join(fixtures, 'ladder-200.json'), '--from', '10', '--to', '100000', '--points', '20', '--log', '--probe', 'a50,Vin,L5,R98'] });
 cases.push({ name: 'sweep-mesh-144', args: ['sweep', join(fixtures, 'mesh-144.json'), '--from', '10', '--to', '50000', '--points', '6', '--probe', 'n0_0,n5_5'] });
 cases.push({ name: 'sweep-three-windings-k', args: ['sweep', join(fixtures, 'three-windings-k.json'), '--from', '1', '--to', '10000', '--points', '15'] });
 cases.push({ name: 'sweep-t-arms-mutual', args: ['sweep', join(fixtures, 't-arms-mutual.json'), '--from', '1', '--to', '1000', '--points', '7', '--log'] });
