@@ -11,7 +11,7 @@ import { SHEET_SCHEMA, type Part, type PartKind, type Sheet } from './sheet';
 const KIND: Record<GraphElement['kind'], PartKind> = {
   resistor: 'resistor', inductor: 'winding', capacitor: 'capacitor',
   'voltage-source': 'vsource', 'current-source': 'isource', 'ideal-transformer': 'transformer',
-  'inductance-arm': 'arm',
+  'inductance-arm': 'arm', switch: 'resistor',
 };
 
 function valueOf(el: GraphElement): Partial<Part> {
@@ -23,6 +23,7 @@ function valueOf(el: GraphElement): Partial<Part> {
     case 'voltage-source':
     case 'current-source': return { value: el.magnitude, phaseDeg: el.phaseDeg };
     case 'ideal-transformer': return { value: el.ratio };
+    case 'switch': return { value: el.closed ? (el.onOhms ?? 0.001) : (el.offOhms ?? 1e9) };
   }
 }
 

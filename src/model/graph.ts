@@ -11,29 +11,16 @@ export const SWEEP_SCHEMA = 'coilwright.sweep/1';
 export type Amplitudes = 'rms' | 'peak';
 export type DotEnd = 'first' | 'second';
 
-export interface ResistorEl { id: string; kind: 'resistor'; nodes: [string, string]; ohms: number }
-export interface InductorEl { id: string; kind: 'inductor'; nodes: [string, string]; henries: number; dot?: DotEnd }
-export interface CapacitorEl { id: string; kind: 'capacitor'; nodes: [string, string]; farads: number }
-export interface VoltageSourceEl { id: string; kind: 'voltage-source'; nodes: [string, string]; magnitude: number; phaseDeg: number }
-export interface CurrentSourceEl { id: string; kind: 'current-source'; nodes: [string, string]; magnitude: number; phaseDeg: number }
 /**
- * Extension of the contract: an arm of an equivalent circuit (for example a
- * T-equivalent of a coupled pair). Its inductance may be zero or negative,
- * which is valid for analysis but is not a part one can buy.
+ * The element kinds, their fields and their types are defined once, by the
+ * solver's element definitions (src/solver/elements); these are their types.
  */
-export interface InductanceArmEl { id: string; kind: 'inductance-arm'; nodes: [string, string]; henries: number }
-export interface IdealTransformerEl { id: string; kind: 'ideal-transformer'; nodes: [string, string, string, string]; ratio: number }
-
-export type GraphElement =
-  | ResistorEl
-  | InductorEl
-  | CapacitorEl
-  | VoltageSourceEl
-  | CurrentSourceEl
-  | IdealTransformerEl
-  | InductanceArmEl;
-
-export type ElementKind = GraphElement['kind'];
+export type {
+  GraphElement, ElementKind, ResistorEl, InductorEl, CapacitorEl, VoltageSourceEl, CurrentSourceEl,
+  IdealTransformerEl, InductanceArmEl, SwitchEl,
+} from '../solver/elements/registry';
+export type { Waveform } from '../solver/elements/waveform';
+import type { GraphElement } from '../solver/elements/registry';
 
 export interface Coupling {
   id: string;

@@ -11,6 +11,7 @@
 import { pointKey, type Point } from './geometry';
 import { PART_DEFS, pinPositions } from './parts/registry';
 import type { Sheet } from './sheet';
+import { UnionFind } from './unionFind';
 
 export interface Topology {
   /** node name of each pin, by part index then pin index */
@@ -28,27 +29,6 @@ export interface Topology {
 }
 
 export interface Anchor extends Point { side: 'left' | 'above'; /** length of the wire run it sits on */ run?: number }
-
-class UnionFind {
-  parent: Int32Array;
-  constructor(n: number) {
-    this.parent = new Int32Array(n);
-    for (let i = 0; i < n; i++) this.parent[i] = i;
-  }
-  find(a: number): number {
-    const p = this.parent;
-    while (p[a] !== a) {
-      p[a] = p[p[a]];
-      a = p[a];
-    }
-    return a;
-  }
-  union(a: number, b: number): void {
-    const ra = this.find(a);
-    const rb = this.find(b);
-    if (ra !== rb) this.parent[Math.max(ra, rb)] = Math.min(ra, rb);
-  }
-}
 
 interface Seg { lo: number; hi: number; wire: number }
 

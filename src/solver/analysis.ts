@@ -1,7 +1,7 @@
 import type { GraphModel, GraphElement, InductorEl, SolveResult, ComplexJson } from '../model/graph';
 import { ModelRefusal } from './errors';
-import { SolverSession } from './session';
-import { dotSign } from './inductance';
+import { SolverSession } from './phasor/session';
+import { dotSign, isWinding, sourceRole } from './elements/registry';
 
 /** Complex numbers as plain pairs, for the analyses' answers. */
 export interface Cx { re: number; im: number }
@@ -72,7 +72,7 @@ function withSourcesZeroed(model: GraphModel, except?: string): GraphModel {
   return {
     ...model,
     elements: model.elements.map((e) =>
-      (e.kind === 'voltage-source' || e.kind === 'current-source') && e.id !== except ? { ...e, magnitude: 0, phaseDeg: 0 } : e,
+      sourceRole(e) && e.id !== except ? { ...e, magnitude: 0, phaseDeg: 0 } : e,
     ),
   };
 }
@@ -108,14 +108,14 @@ export interface PortImpedance {
  */
 export function sourceImpedance(model: GraphModel, sourceId: string, frequencyHz = model.frequencyHz): PortImpedance {
   const src = findElement(model, sourceId);
-  if (src.kind !== 'voltage-source' && src.kind !== 'current-source') {
+  if (!sourceRole(src)) {
     throw new ModelRefusal(`element "${sourceId}" is a ${src.kind}, not a source`, [{ kind: 'element', id: sourceId }]);
   }
   const test = withSourcesZeroed(model, sourceId);
   test.elements = test.elements.map((e) => (e.id === sourceId ? { ...(e as typeof src), magnitude: 1, phaseDeg: 0 } : e));
   const res = new SolverSession(test).solveAt(frequencyHz);
   const r = res.elements[sourceId] as { voltage: ComplexJson; current: ComplexJson };
-  if (src.kind === 'voltage-source') {
+  if (sourceRole(src) === 'voltage') {
     const delivered = { re: -r.current.re, im: -r.current.im };
     return portFromAdmittance(delivered);
   }
@@ -173,7 +173,7 @@ export interface Reflection {
  */
 export function reflectedImpedances(model: GraphModel, windingId: string, frequencyHz = model.frequencyHz): Reflection[] {
   const w = findElement(model, windingId);
-  if (w.kind !== 'inductor') throw new ModelRefusal(`element "${windingId}" is a ${w.kind}, not a winding`, [{ kind: 'element', id: windingId }]);
+  if (!isWinding(w)) throw new ModelRefusal(`element "${windingId}" is a ${w.kind}, not a winding`, [{ kind: 'element', id: windingId }]);
   const omega = 2 * Math.PI * frequencyHz;
   const out: Reflection[] = [];
   for (const c of model.couplings ?? []) {

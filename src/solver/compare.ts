@@ -1,7 +1,8 @@
 import type { ComplexJson, GraphModel, InductorEl, SolveResult } from '../model/graph';
 import { ModelRefusal } from './errors';
-import { SolverSession } from './session';
+import { SolverSession } from './phasor/session';
 import { sourceImpedance, type PortImpedance } from './analysis';
+import { isWinding, sourceRole } from './elements/registry';
 
 /** One quantity that differs between two solves. */
 export interface Change {
@@ -26,7 +27,7 @@ export interface DotComparison {
 /** The model with one winding's polarity dot moved to its other terminal. */
 export function flipDot(model: GraphModel, windingId: string): GraphModel {
   const w = model.elements.find((e) => e.id === windingId);
-  if (!w || w.kind !== 'inductor') {
+  if (!w || !isWinding(w)) {
     throw new ModelRefusal(`element "${windingId}" is not a winding of this model`, [{ kind: 'element', id: windingId }]);
   }
   return {
@@ -82,7 +83,7 @@ export function compareDotFlip(model: GraphModel, windingId: string, frequencyHz
   const flipped = flipDot(model, windingId);
   const before = new SolverSession(model).solveAt(frequencyHz);
   const after = new SolverSession(flipped).solveAt(frequencyHz);
-  const sources = model.elements.filter((e) => e.kind === 'voltage-source' || e.kind === 'current-source');
+  const sources = model.elements.filter((e) => sourceRole(e) !== undefined);
   return {
     winding: windingId,
     flipped,

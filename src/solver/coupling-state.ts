@@ -1,6 +1,6 @@
 import type { GraphModel, InductorEl, SolveResult, TwoTerminalResult, Coupling } from '../model/graph';
 import { ModelRefusal } from './errors';
-import { dotSign } from './inductance';
+import { dotSign } from './elements/registry';
 import type { Cx } from './analysis';
 
 /**

@@ -1,5 +1,6 @@
 import type { GraphModel, SolveResult } from '../model/graph';
 import { tellegenResidual } from './analysis';
+import { ELEMENT_DEFS, sourceRole } from './elements/registry';
 
 export interface PowerRow {
   id: string;
@@ -35,11 +36,11 @@ export function powerSummary(model: GraphModel, result: SolveResult): PowerSumma
     const { watts, vars } = r.power;
     const va = Math.hypot(watts, vars);
     rows.push({ id: el.id, kind: el.kind, watts, vars, va, powerFactor: va === 0 ? null : Math.abs(watts) / va });
-    if (el.kind === 'voltage-source' || el.kind === 'current-source') {
+    if (sourceRole(el)) {
       dw -= watts;
       dv -= vars;
     }
-    if (el.kind === 'resistor') dissipated += watts;
+    if (ELEMENT_DEFS[el.kind].roles.dissipative) dissipated += watts;
   }
   return { rows, delivered: { watts: dw, vars: dv }, dissipated, tellegen: tellegenResidual(result) };
 }

@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { GRAPH_SCHEMA, type GraphModel, type GraphElement, type Coupling } from '../model/graph';
 import { ModelRefusal } from './errors';
+import { ELEMENT_DEFS, ELEMENT_KINDS, isElementKind } from './elements/registry';
+import { finite, nonNegative } from './elements/schema';
 
 /**
  * Reads an untrusted value as a `coilwright.graph/1` graph model. Structure is
@@ -8,34 +10,7 @@ import { ModelRefusal } from './errors';
  * field at fault and what to change.
  */
 
-const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
-const positive = finite.refine((v) => v > 0, { message: 'must be greater than 0' });
-const nonNegative = finite.refine((v) => v >= 0, { message: 'must be 0 or more' });
-const nodeName = z.string().min(1, { message: 'node names must be non-empty strings' });
-const twoNodes = z.tuple([nodeName, nodeName], { message: 'must list exactly two node names' });
-const fourNodes = z.tuple([nodeName, nodeName, nodeName, nodeName], {
-  message: 'must list exactly four node names (primary dotted, primary other, secondary dotted, secondary other)',
-});
-
-const idField = z.string();
-const elementSchemas = {
-  resistor: z.object({ id: idField, kind: z.literal('resistor'), nodes: twoNodes, ohms: positive }),
-  inductor: z.object({
-    id: idField,
-    kind: z.literal('inductor'),
-    nodes: twoNodes,
-    henries: positive,
-    dot: z.enum(['first', 'second'], { message: 'must be "first" or "second"' }).optional(),
-  }),
-  capacitor: z.object({ id: idField, kind: z.literal('capacitor'), nodes: twoNodes, farads: positive }),
-  'voltage-source': z.object({ id: idField, kind: z.literal('voltage-source'), nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
-  'current-source': z.object({ id: idField, kind: z.literal('current-source'), nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
-  'ideal-transformer': z.object({ id: idField, kind: z.literal('ideal-transformer'), nodes: fourNodes, ratio: positive }),
-  'inductance-arm': z.object({ id: idField, kind: z.literal('inductance-arm'), nodes: twoNodes, henries: finite }),
-} as const;
-
-const KINDS = Object.keys(elementSchemas) as (keyof typeof elementSchemas)[];
-
+const KINDS = ELEMENT_KINDS;
 const topSchema = z.object({
   schema: z.literal(GRAPH_SCHEMA, { message: `must be "${GRAPH_SCHEMA}"` }),
   frequencyHz: nonNegative,
@@ -125,7 +100,7 @@ export function parseGraphModel(input: unknown): GraphModel {
     }
     seen.set(id, index);
     const kind = r.kind;
-    const schema = typeof kind === 'string' && Object.hasOwn(elementSchemas, kind) ? elementSchemas[kind as keyof typeof elementSchemas] : undefined;
+    const schema = isElementKind(kind) ? ELEMENT_DEFS[kind].schema : undefined;
     if (!schema) {
       throw new ModelRefusal(`element "${id}": unknown kind ${describe(kind)}; use one of ${KINDS.join(', ')}`, [{ kind: 'element', id }]);
     }
@@ -170,7 +145,7 @@ export function parseGraphModel(input: unknown): GraphModel {
     for (const w of windings) {
       const el = byId.get(w);
       if (!el) throw new ModelRefusal(`${name}: winding "${w}" is not an element of this model; name an inductor's id`, [{ kind: 'coupling', id: rid }]);
-      if (el.kind !== 'inductor') throw new ModelRefusal(`${name}: "${w}" is a ${el.kind}, not an inductor; only inductors can be coupled`, [{ kind: 'coupling', id: rid }, { kind: 'element', id: w }]);
+      if (!ELEMENT_DEFS[el.kind].roles.winding) throw new ModelRefusal(`${name}: "${w}" is a ${el.kind}, not an inductor; only inductors can be coupled`, [{ kind: 'coupling', id: rid }, { kind: 'element', id: w }]);
     }
     if (new Set(windings).size !== windings.length) {
       throw new ModelRefusal(`${name}: names a winding more than once; list each inductor once`, [{ kind: 'coupling', id: rid }]);

@@ -29,7 +29,9 @@ function valueOf(el: GraphElement): number {
     case 'inductance-arm': return el.henries;
     case 'capacitor': return el.farads;
     case 'ideal-transformer': return el.ratio;
-    default: return el.magnitude;
+    case 'voltage-source':
+    case 'current-source': return el.magnitude;
+    default: throw new Error(`the generators make no ${el.kind}`);
   }
 }
 

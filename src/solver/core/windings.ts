@@ -1,5 +1,12 @@
-import type { GraphModel, InductorEl } from '../model/graph';
-import { ModelRefusal } from './errors';
+/**
+ * Windings and their couplings: the signed mutual terms the dots give, the
+ * check that the inductance matrix is positive semidefinite, and the
+ * reciprocal inductance matrix Γ = L⁻¹ of each group of coupled windings, by
+ * which the phasor engine may stamp windings without branch currents.
+ */
+import type { GraphModel, InductorEl } from '../../model/graph';
+import { ModelRefusal } from '../errors';
+import { defOf, dotSign } from '../elements/registry';
 
 /** A mutual term between two inductors, signed by their dots: M·d_i·d_j. */
 export interface Mutual {
@@ -10,11 +17,6 @@ export interface Mutual {
   /** unsigned mutual inductance */
   magnitude: number;
   coupling: string;
-}
-
-/** d = +1 when the winding's dot is on nodes[0], −1 when on nodes[1]. */
-export function dotSign(el: InductorEl): 1 | -1 {
-  return el.dot === 'second' ? -1 : 1;
 }
 
 /**
@@ -152,3 +154,106 @@ function choleskyFailure(a: Float64Array, n: number): number {
   }
   return -1;
 }
+
+/** One row of Γ = L⁻¹: the partner windings (element indices, itself included) and their entries. */
+export interface GammaRow {
+  others: number[];
+  gamma: number[];
+}
+
+/**
+ * In the 'ac' form, inductors need no branch current when their (dot-signed)
+ * inductance matrix can be inverted safely: the nodal approach stamps
+ * Γ = L⁻¹ as the admittance Γ/(jω). An uncoupled inductor is the 1×1 case
+ * (Γ = 1/L). A group of coupled windings whose matrix is near singular (k
+ * close to 1, where Γ would lose precision) keeps its branch currents.
+ * Equivalence of the two forms: V = jωL·I ⇔ I = L⁻¹·V/(jω) (standard).
+ */
+export function reciprocalInductances(model: GraphModel, mutuals: Mutual[]): Map<number, GammaRow> {
+  const out = new Map<number, GammaRow>();
+  const partners = new Map<number, Mutual[]>();
+  for (const mu of mutuals) {
+    if (!partners.has(mu.a)) partners.set(mu.a, []);
+    if (!partners.has(mu.b)) partners.set(mu.b, []);
+    partners.get(mu.a)!.push(mu);
+    partners.get(mu.b)!.push(mu);
+  }
+  const seen = new Set<number>();
+  model.elements.forEach((el, i) => {
+    if (!defOf(el).roles.winding) return;
+    if (!partners.has(i)) {
+      out.set(i, { others: [i], gamma: [1 / (el as InductorEl).henries] });
+      return;
+    }
+    if (seen.has(i)) return;
+    // the group of windings linked to i through couplings
+    const group: number[] = [];
+    const stack = [i];
+    seen.add(i);
+    while (stack.length) {
+      const w = stack.pop()!;
+      group.push(w);
+      for (const mu of partners.get(w)!) {
+        const o = mu.a === w ? mu.b : mu.a;
+        if (!seen.has(o)) {
+          seen.add(o);
+          stack.push(o);
+        }
+      }
+    }
+    const n = group.length;
+    if (n > 64) return; // large groups keep branch currents (dense inverse not worth it)
+    const pos = new Map(group.map((e, t) => [e, t]));
+    const l = new Float64Array(n * n);
+    group.forEach((e, t) => (l[t * n + t] = (model.elements[e] as InductorEl).henries));
+    for (const w of group) {
+      for (const mu of partners.get(w)!) {
+        if (mu.a !== w) continue;
+        const a = pos.get(mu.a)!;
+        const b = pos.get(mu.b)!;
+        l[a * n + b] += mu.m;
+        l[b * n + a] += mu.m;
+      }
+    }
+    const gamma = invertWellConditioned(l, n);
+    if (!gamma) return;
+    group.forEach((e, t) => out.set(e, { others: group, gamma: Array.from(gamma.subarray(t * n, t * n + n)) }));
+  });
+  return out;
+}
+
+/**
+ * Inverse of a symmetric positive definite matrix, or null when its
+ * unit-diagonal scaling has a Cholesky pivot below 0.05 (for a pair: k above
+ * about 0.975), where the inverse would lose too many digits.
+ */
+function invertWellConditioned(l: Float64Array, n: number): Float64Array | null {
+  const d = new Float64Array(n);
+  for (let t = 0; t < n; t++) d[t] = Math.sqrt(l[t * n + t]);
+  const a = new Float64Array(n * n);
+  for (let r = 0; r < n; r++) for (let c = 0; c < n; c++) a[r * n + c] = l[r * n + c] / (d[r] * d[c]);
+  // Gauss-Jordan on the scaled matrix (SPD: no pivoting needed), checking pivots
+  const inv = new Float64Array(n * n);
+  for (let t = 0; t < n; t++) inv[t * n + t] = 1;
+  for (let p = 0; p < n; p++) {
+    const piv = a[p * n + p];
+    if (!(piv > 0.05)) return null;
+    for (let c = 0; c < n; c++) {
+      a[p * n + c] /= piv;
+      inv[p * n + c] /= piv;
+    }
+    for (let r = 0; r < n; r++) {
+      if (r === p) continue;
+      const f = a[r * n + p];
+      if (f === 0) continue;
+      for (let c = 0; c < n; c++) {
+        a[r * n + c] -= f * a[p * n + c];
+        inv[r * n + c] -= f * inv[p * n + c];
+      }
+    }
+  }
+  // undo the scaling: L⁻¹ = D⁻¹·A⁻¹·D⁻¹
+  for (let r = 0; r < n; r++) for (let c = 0; c < n; c++) inv[r * n + c] /= d[r] * d[c];
+  return inv;
+}
+

@@ -1,6 +1,7 @@
-import { SWEEP_SCHEMA, type ComplexJson, type GraphModel, type SweepResult } from '../model/graph';
-import { ModelRefusal } from './errors';
+import { SWEEP_SCHEMA, type ComplexJson, type GraphModel, type SweepResult } from '../../model/graph';
+import { ModelRefusal } from '../errors';
 import { SolverSession } from './session';
+import { portCount } from '../elements/registry';
 
 /** Frequencies evenly spaced, or evenly spaced in log when `log` is set. */
 export function frequencyGrid(from: number, to: number, points: number, log: boolean): number[] {
@@ -41,7 +42,7 @@ export function sweepGraph(model: GraphModel, frequenciesHz: number[], probe?: s
   for (const n of probeNodes) nodes[n] = [];
   const elements: SweepResult['elements'] = {};
   for (const e of probeElements) {
-    elements[e.id] = e.kind === 'ideal-transformer' ? { voltages: [], currents: [] } : { voltage: [], current: [] };
+    elements[e.id] = portCount(e) === 2 ? { voltages: [], currents: [] } : { voltage: [], current: [] };
   }
   for (const f of frequenciesHz) {
     let res;

@@ -4,19 +4,28 @@ import {
   type ElementResult,
   type GraphModel,
   type SolveResult,
-} from '../model/graph';
-import { ModelRefusal } from './errors';
-import { buildTopology, checkSolvable, type Topology } from './topology';
-import { collectMutuals } from './inductance';
-import { buildMna, type MnaSystem, type MnaForm } from './mna';
-import { analyze, ComplexSparseLU, type LuSymbolic } from './lu-backend';
-import { SingularMatrixError, type CscPattern } from './sparse/types';
+} from '../../model/graph';
+import { ModelRefusal } from '../errors';
+import { buildTopology, type Topology } from '../core/topology';
+import { checkSolvable } from '../core/checks';
+import { collectMutuals, reciprocalInductances } from '../core/windings';
+import { buildDescriptor, rightHandSide, type Descriptor } from '../core/descriptor';
+import { defOf } from '../elements/registry';
+import { analyze, ComplexSparseLU, type LuSymbolic } from '../lu-backend';
+import { SingularMatrixError, type CscPattern } from '../sparse/types';
+
+/**
+ * 'ac': windings stamped through the reciprocal inductance matrix where that
+ * is well conditioned (fewer unknowns); 'dc': the full branch form, which 0 Hz
+ * needs (an inductance is a short there).
+ */
+export type MnaForm = 'ac' | 'dc';
 
 /** Raw solution at one frequency: node voltages and branch currents as typed arrays. */
 export interface RawSolution {
   frequencyHz: number;
   /** the system the unknowns belong to */
-  mna: MnaSystem;
+  mna: Descriptor;
   /** per node index */
   vRe: Float64Array;
   vIm: Float64Array;
@@ -34,11 +43,15 @@ export interface RawSolution {
 export class SolverSession {
   readonly model: GraphModel;
   readonly topo: Topology;
-  readonly mna: MnaSystem;
+  readonly mna: Descriptor;
+  readonly form: MnaForm;
+  private readonly rhsRe: Float64Array;
+  private readonly rhsIm: Float64Array;
   private readonly symbolic: LuSymbolic;
-  private readonly lu: ComplexSparseLU;
-  private readonly re: Float64Array;
-  private readonly im: Float64Array;
+  /** this session's own LU (null once a later session has taken it over) */
+  private lu: ComplexSparseLU | null;
+  private re: Float64Array;
+  private im: Float64Array;
   private checked = new Set<boolean>();
   private factored = false;
   private dcTwin?: SolverSession;
@@ -52,14 +65,32 @@ export class SolverSession {
     this.model = model;
     this.topo = buildTopology(model);
     const mutuals = collectMutuals(model);
-    this.mna = buildMna(model, this.topo, mutuals, form);
+    this.form = form;
+    this.mna = buildDescriptor(model, this.topo, mutuals, { reduced: form === 'ac' ? reciprocalInductances(model, mutuals) : undefined });
+    const n = this.mna.n;
+    const srcRe = new Float64Array(model.elements.length);
+    const srcIm = new Float64Array(model.elements.length);
+    model.elements.forEach((el, i) => {
+      const p = defOf(el).phasor?.(el as never);
+      if (p) {
+        srcRe[i] = p.re;
+        srcIm[i] = p.im;
+      }
+    });
+    this.rhsRe = new Float64Array(n);
+    this.rhsIm = new Float64Array(n);
+    rightHandSide(this.mna, srcRe, srcIm, this.rhsRe, this.rhsIm);
     if (previous && samePattern(previous.mna.pattern, this.mna.pattern)) {
+      // the LU and its value buffers move to this session: sessions never share mutable buffers
       this.symbolic = previous.symbolic;
       this.lu = previous.lu;
-      this.factored = previous.factored;
+      this.factored = previous.factored && previous.lu !== null;
       this.re = previous.re;
       this.im = previous.im;
-      previous.factored = false; // the LU now belongs to this session
+      previous.lu = null;
+      previous.factored = false;
+      previous.re = new Float64Array(0);
+      previous.im = new Float64Array(0);
     } else {
       this.symbolic = analyze(this.mna.pattern);
       this.lu = new ComplexSparseLU(this.symbolic);
@@ -87,32 +118,38 @@ export class SolverSession {
       checkSolvable(this.model, this.topo, frequencyHz);
       this.checked.add(dc);
     }
-    if (dc && this.mna.form === 'ac') {
+    if (dc && this.form === 'ac') {
       this.dcTwin ??= new SolverSession(this.model, undefined, 'dc');
       return this.dcTwin.solveRaw(0);
     }
-    const { mna, re, im } = this;
+    if (!this.lu) {
+      // taken over by a later session: this one gets buffers of its own again
+      this.lu = new ComplexSparseLU(this.symbolic);
+      this.re = new Float64Array(this.mna.pattern.rowIdx.length);
+      this.im = new Float64Array(this.mna.pattern.rowIdx.length);
+    }
+    const { mna, re, im, lu } = this;
     const omega = 2 * Math.PI * frequencyHz;
-    const { cRe, wIm, uIm } = mna;
-    re.set(cRe);
-    if (mna.form === 'ac') {
-      const inv = 1 / omega;
-      for (let s = 0; s < im.length; s++) im[s] = omega * wIm[s] + uIm[s] * inv;
+    const { g, c, inv } = mna;
+    re.set(g);
+    if (this.form === 'ac') {
+      const invOmega = 1 / omega;
+      for (let s = 0; s < im.length; s++) im[s] = omega * c[s] - inv[s] * invOmega;
     } else {
-      for (let s = 0; s < im.length; s++) im[s] = omega * wIm[s];
+      for (let s = 0; s < im.length; s++) im[s] = omega * c[s];
     }
     try {
-      if (this.factored) this.lu.refactor({ re, im });
-      else this.lu.factor({ re, im });
+      if (this.factored) lu.refactor({ re, im });
+      else lu.factor({ re, im });
       this.factored = true;
     } catch (e) {
       this.factored = false;
       if (e instanceof SingularMatrixError) throw this.singularRefusal(e.column, frequencyHz);
       throw e;
     }
-    const xRe = mna.rhsRe.slice();
-    const xIm = mna.rhsIm.slice();
-    this.lu.solve(xRe, xIm);
+    const xRe = this.rhsRe.slice();
+    const xIm = this.rhsIm.slice();
+    lu.solve(xRe, xIm);
     const nNodes = this.topo.nodeNames.length;
     const vRe = new Float64Array(nNodes);
     const vIm = new Float64Array(nNodes);
@@ -155,87 +192,41 @@ export class SolverSession {
     return new ModelRefusal(`element "${what.id}" (${el.kind}): its current is undetermined at ${frequencyHz} Hz${hint}`, [what]);
   }
 
-  /** Builds the spec's result JSON from a raw solution. */
+  /** Builds the contract's result JSON from a raw solution. */
   toResult(sol: RawSolution, only?: { nodes?: Set<string>; elements?: Set<string> }): SolveResult {
     const { model, topo } = this;
-    const mna = sol.mna;
     const dc = sol.frequencyHz === 0;
     const scale = dc || model.amplitudes === 'rms' ? 1 : 0.5;
-    const omega = 2 * Math.PI * sol.frequencyHz;
-    const nodes: Record<string, ComplexJson> = {};
+    const nodes: Record<string, ComplexJson> = Object.create(null);
     topo.nodeNames.forEach((name, v) => {
       if (!only?.nodes || only.nodes.has(name)) nodes[name] = c(sol.vRe[v], sol.vIm[v]);
     });
-    const elements: Record<string, ElementResult> = {};
+    const elements: Record<string, ElementResult> = Object.create(null);
+    const port = { vr: 0, vi: 0, ir: 0, ii: 0 };
     model.elements.forEach((el, i) => {
       if (only?.elements && !only.elements.has(el.id)) return;
-      const o = 4 * i;
-      const nd = topo.terminals;
-      const vr = sol.vRe[nd[o]] - sol.vRe[nd[o + 1]];
-      const vi = sol.vIm[nd[o]] - sol.vIm[nd[o + 1]];
-      let ir = 0;
-      let ii = 0;
-      const k = mna.branchUnknown[i];
-      switch (el.kind) {
-        case 'resistor':
-          ir = vr / el.ohms;
-          ii = vi / el.ohms;
-          break;
-        case 'capacitor': // I = jωC·V
-          ir = -omega * el.farads * vi;
-          ii = omega * el.farads * vr;
-          break;
-        case 'inductance-arm':
-        case 'inductor':
-          if (k < 0) {
-            // admittance form: I_i = Σ_j Γ_ij·V_j / (jω)
-            const row = mna.reciprocal.get(i)!;
-            let sr = 0;
-            let si = 0;
-            for (let t = 0; t < row.others.length; t++) {
-              const o2 = 4 * row.others[t];
-              sr += row.gamma[t] * (sol.vRe[nd[o2]] - sol.vRe[nd[o2 + 1]]);
-              si += row.gamma[t] * (sol.vIm[nd[o2]] - sol.vIm[nd[o2 + 1]]);
-            }
-            ir = si / omega;
-            ii = -sr / omega;
-            break;
-          }
-          ir = sol.xRe[k];
-          ii = sol.xIm[k];
-          break;
-        case 'voltage-source':
-          ir = sol.xRe[k];
-          ii = sol.xIm[k];
-          break;
-        case 'current-source': {
-          const ph = (el.phaseDeg * Math.PI) / 180;
-          ir = el.magnitude * Math.cos(ph);
-          ii = el.magnitude * Math.sin(ph);
-          break;
-        }
-        case 'ideal-transformer': {
-          const vsr = sol.vRe[nd[o + 2]] - sol.vRe[nd[o + 3]];
-          const vsi = sol.vIm[nd[o + 2]] - sol.vIm[nd[o + 3]];
-          const ipr = sol.xRe[k];
-          const ipi = sol.xIm[k];
-          const isr = -el.ratio * ipr;
-          const isi = -el.ratio * ipi;
-          const watts = scale * (vr * ipr + vi * ipi + vsr * isr + vsi * isi);
-          const vars = scale * (vi * ipr - vr * ipi + vsi * isr - vsr * isi);
-          elements[el.id] = {
-            voltages: [c(vr, vi), c(vsr, vsi)],
-            currents: [c(ipr, ipi), c(isr, isi)],
-            power: { watts: z(watts), vars: z(vars) },
-          };
-          return;
-        }
+      const ports = defOf(el).ports;
+      if (ports.length === 1) {
+        readPort(this, sol, i, 0, port);
+        const { vr, vi, ir, ii } = port;
+        // S = V·conj(I) (rms or DC), ½·V·conj(I) (peak)
+        elements[el.id] = {
+          voltage: c(vr, vi),
+          current: c(ir, ii),
+          power: { watts: z(scale * (vr * ir + vi * ii)), vars: z(scale * (vi * ir - vr * ii)) },
+        };
+        return;
       }
-      // S = V·conj(I) (rms or DC), ½·V·conj(I) (peak)
+      readPort(this, sol, i, 0, port);
+      const { vr, vi, ir: ipr, ii: ipi } = port;
+      readPort(this, sol, i, 1, port);
+      const { vr: vsr, vi: vsi, ir: isr, ii: isi } = port;
+      const watts = scale * (vr * ipr + vi * ipi + vsr * isr + vsi * isi);
+      const vars = scale * (vi * ipr - vr * ipi + vsi * isr - vsr * isi);
       elements[el.id] = {
-        voltage: c(vr, vi),
-        current: c(ir, ii),
-        power: { watts: z(scale * (vr * ir + vi * ii)), vars: z(scale * (vi * ir - vr * ii)) },
+        voltages: [c(vr, vi), c(vsr, vsi)],
+        currents: [c(ipr, ipi), c(isr, isi)],
+        power: { watts: z(watts), vars: z(vars) },
       };
     });
     return {
@@ -246,6 +237,67 @@ export class SolverSession {
       elements,
       warnings: [...topo.warnings],
     };
+  }
+}
+
+/**
+ * Voltage across port p of element i and the current through it, by the
+ * port's current rule (element definitions): v/R, jωC·v, a branch unknown (or,
+ * for a winding stamped through Γ, Σ_j Γ_ij·V_j/(jω)), or the source's value.
+ */
+function readPort(session: SolverSession, sol: RawSolution, i: number, p: number, out: { vr: number; vi: number; ir: number; ii: number }): void {
+  const el = session.model.elements[i];
+  const rule = defOf(el).ports[p];
+  const nd = session.topo.terminals;
+  const o = 4 * i;
+  const a = nd[o + rule.terminals[0]];
+  const b = nd[o + rule.terminals[1]];
+  const vr = sol.vRe[a] - sol.vRe[b];
+  const vi = sol.vIm[a] - sol.vIm[b];
+  out.vr = vr;
+  out.vi = vi;
+  const omega = 2 * Math.PI * sol.frequencyHz;
+  const cur = rule.current;
+  switch (cur.kind) {
+    case 'resistance': {
+      const ohms = cur.ohms(el as never, {});
+      out.ir = vr / ohms;
+      out.ii = vi / ohms;
+      return;
+    }
+    case 'capacitance': {
+      const farads = cur.farads(el as never);
+      out.ir = -omega * farads * vi;
+      out.ii = omega * farads * vr;
+      return;
+    }
+    case 'branch': {
+      const k = sol.mna.branchUnknown[i];
+      if (k < 0) {
+        // stamped through Γ: I_i = Σ_j Γ_ij·V_j / (jω)
+        const row = sol.mna.reduced.get(i)!;
+        let sr = 0;
+        let si = 0;
+        for (let t = 0; t < row.others.length; t++) {
+          const o2 = 4 * row.others[t];
+          sr += row.gamma[t] * (sol.vRe[nd[o2]] - sol.vRe[nd[o2 + 1]]);
+          si += row.gamma[t] * (sol.vIm[nd[o2]] - sol.vIm[nd[o2 + 1]]);
+        }
+        out.ir = si / omega;
+        out.ii = -sr / omega;
+        return;
+      }
+      const gain = cur.gain(el as never);
+      out.ir = gain * sol.xRe[k + cur.branch];
+      out.ii = gain * sol.xIm[k + cur.branch];
+      return;
+    }
+    case 'source': {
+      const ph = defOf(el).phasor!(el as never);
+      out.ir = ph.re;
+      out.ii = ph.im;
+      return;
+    }
   }
 }
 

@@ -1,0 +1,25 @@
+import { z } from 'zod';
+import { finite, idField, positive, twoNodes } from './schema';
+import { conductance, type ElementDef } from './types';
+
+export const capacitorSchema = z.object({
+  id: idField,
+  kind: z.literal('capacitor'),
+  nodes: twoNodes,
+  farads: positive,
+  /** v(0) = V(nodes[0]) − V(nodes[1]), for the time domain (default 0) */
+  initialVolts: finite.optional(),
+});
+export type CapacitorEl = z.infer<typeof capacitorSchema>;
+
+/** A capacitance: i = C·dv/dt (phasor: jωC·V); open at 0 Hz. */
+export const capacitor: ElementDef<CapacitorEl> = {
+  kind: 'capacitor',
+  schema: capacitorSchema,
+  terminals: 2,
+  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never' },
+  branches: 0,
+  stamp: (el, at) => conductance(at, el.farads, 'c'),
+  ports: [{ terminals: [0, 1], current: { kind: 'capacitance', farads: (el) => el.farads } }],
+  sweepable: { field: 'farads', what: 'capacitance', unit: 'F', span: 10 },
+};
