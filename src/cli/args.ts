@@ -5,13 +5,15 @@ export const USAGE = `usage:
   coilwright solve FILE.json
   coilwright sweep FILE.json --from HZ --to HZ --points N [--log] [--probe NAME[,NAME...]]
   coilwright svg SHEET.json
+  coilwright tf FILE.json --input SOURCE --output node:NAME|voltage:ELEMENT|current:ELEMENT
 
 FILE is a graph model (coilwright.graph/1) or a sheet saved by the editor.
 Exit status: 0 solved, 1 the model was refused, 2 the command line is wrong.`;
 
 export interface SolveCommand { command: 'solve' | 'svg'; file: string }
 export interface SweepCommand { command: 'sweep'; file: string; from: number; to: number; points: number; log: boolean; probe?: string[] }
-export type Command = SolveCommand | SweepCommand | { command: 'help' };
+export interface TfCommand { command: 'tf'; file: string; input: string; output: string }
+export type Command = SolveCommand | SweepCommand | TfCommand | { command: 'help' };
 
 function number(flag: string, raw: string | undefined): number {
   if (raw === undefined) throw new UsageError(`${flag} needs a value`);
@@ -23,8 +25,8 @@ function number(flag: string, raw: string | undefined): number {
 export function parseArgs(argv: string[]): Command {
   const [command, ...rest] = argv;
   if (command === undefined || command === 'help' || command === '--help' || command === '-h') return { command: 'help' };
-  if (command !== 'solve' && command !== 'sweep' && command !== 'svg') {
-    throw new UsageError(`unknown command "${command}"; use solve, sweep or svg`);
+  if (command !== 'solve' && command !== 'sweep' && command !== 'svg' && command !== 'tf') {
+    throw new UsageError(`unknown command "${command}"; use solve, sweep, tf or svg`);
   }
   const positional: string[] = [];
   const flags = new Map<string, string | true>();
@@ -37,7 +39,7 @@ export function parseArgs(argv: string[]): Command {
       if (name === '--log') {
         if (eq > 0) throw new UsageError('--log takes no value');
         flags.set(name, true);
-      } else if (['--from', '--to', '--points', '--probe'].includes(name) && command === 'sweep') {
+      } else if ((['--from', '--to', '--points', '--probe'].includes(name) && command === 'sweep') || (['--input', '--output'].includes(name) && command === 'tf')) {
         const value = eq > 0 ? a.slice(eq + 1) : rest[++i];
         if (value === undefined) throw new UsageError(`${name} needs a value`);
         flags.set(name, value);
@@ -49,6 +51,14 @@ export function parseArgs(argv: string[]): Command {
   if (positional.length === 0) throw new UsageError(`${command} needs a FILE`);
   if (positional.length > 1) throw new UsageError(`${command} takes one FILE, got ${positional.length}: ${positional.join(' ')}`);
   const file = positional[0];
+  if (command === 'tf') {
+    for (const need of ['--input', '--output']) if (!flags.has(need)) throw new UsageError(`tf needs ${need}`);
+    const input = (flags.get('--input') as string).trim();
+    const output = (flags.get('--output') as string).trim();
+    if (!input) throw new UsageError('--input needs the id of a voltage or current source');
+    if (!/^(node|voltage|current):.+$/.test(output)) throw new UsageError(`--output must be node:NAME, voltage:ELEMENT or current:ELEMENT, got "${output}"`);
+    return { command, file, input, output };
+  }
   if (command !== 'sweep') {
     if (flags.size) throw new UsageError(`${command} takes no options`);
     return { command, file };

@@ -2,7 +2,7 @@ import { readFileSync, statSync } from 'node:fs';
 import { parseArgs, UsageError, USAGE } from './args';
 import { loadModelText } from './load';
 import { jsonPieces } from './format';
-import { ModelRefusal, solveGraph, sweepGraph, frequencyGrid, ProbeError } from '../solver';
+import { ModelRefusal, solveGraph, sweepGraph, frequencyGrid, ProbeError, transferFunction, TransferUsageError } from '../solver';
 
 const MAX_FILE_BYTES = 512 * 1024 * 1024;
 
@@ -66,10 +66,11 @@ async function main(argv: string[]): Promise<void> {
       const { model } = await loadModelText(readFile(cmd.file), cmd.file);
       if (cmd.command === 'solve') out = solveGraph(model);
       else if (cmd.command === 'sweep') out = sweepGraph(model, frequencyGrid(cmd.from, cmd.to, cmd.points, cmd.log), cmd.probe);
+      else if (cmd.command === 'tf') out = transferFunction(model, cmd.input, cmd.output);
     }
     await writeOut(typeof out === 'string' ? [out] : jsonPieces(out));
   } catch (e) {
-    if (e instanceof ProbeError) fail(2, e.message);
+    if (e instanceof ProbeError || e instanceof TransferUsageError) fail(2, e.message);
     if (e instanceof ModelRefusal) fail(1, e.message);
     if (e instanceof RangeError && /call stack|Invalid array length|Invalid typed array length/.test(e.message)) {
       fail(1, `${cmd.file}: the model is too large or too deeply nested to read (${e.message})`);

@@ -7,6 +7,8 @@
 export const GRAPH_SCHEMA = 'coilwright.graph/1';
 export const RESULT_SCHEMA = 'coilwright.result/1';
 export const SWEEP_SCHEMA = 'coilwright.sweep/1';
+export const TRANSFER_SCHEMA = 'coilwright.transfer/1';
+export const TRANSIENT_SCHEMA = 'coilwright.transient/1';
 
 export type Amplitudes = 'rms' | 'peak';
 export type DotEnd = 'first' | 'second';
@@ -62,6 +64,20 @@ export interface SweepResult {
   frequenciesHz: number[];
   nodes: Record<string, ComplexJson[]>;
   elements: Record<string, { voltage?: ComplexJson[]; current?: ComplexJson[]; voltages?: [ComplexJson, ComplexJson][]; currents?: [ComplexJson, ComplexJson][] }>;
+  warnings: string[];
+}
+
+/** The transfer function of `tf` (contract: time-and-s-domain.md). Roots in rad/s, polynomials highest power first. */
+export interface TransferResult {
+  schema: typeof TRANSFER_SCHEMA;
+  input: string;
+  output: string;
+  gain: number;
+  zeros: ComplexJson[];
+  poles: ComplexJson[];
+  numerator: number[];
+  denominator: number[];
+  naturalFrequencies: ComplexJson[];
   warnings: string[];
 }
 

@@ -6,3 +6,4 @@ export * from './analysis';
 export { pairState, connectionOf, mutualOf, type PairState, type Connection } from './coupling-state';
 export { compareDotFlip, diffResults, flipDot, type Change, type DotComparison } from './compare';
 export { powerSummary, efficiency, type PowerRow, type PowerSummary } from './power';
+export { transferFunction, TransferUsageError } from './sdomain/transfer';

@@ -1,0 +1,101 @@
+import { beforeAll, describe, it, expect } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { build } from 'esbuild';
+
+/**
+ * `tf` through the command line as a script would call it (contract:
+ * time-and-s-domain.md, "tf" and "Exit status"): the answer's fields; unknown
+ * source, node or element and a malformed output are usage errors (exit 2);
+ * a structurally unsolvable model is refused as `solve` refuses it (exit 1);
+ * one line on standard error and nothing on standard output either way.
+ */
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
+const dir = mkdtempSync(join(tmpdir(), 'coilwright-tf-'));
+// a bundle of its own, so that this file never races another test rebuilding dist-cli
+const cli = join(dir, 'coilwright.mjs');
+beforeAll(async () => {
+  await build({ entryPoints: [join(root, 'src/cli/main.ts')], outfile: cli, bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'error' });
+});
+let counter = 0;
+const run = (args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });
+const fileWith = (content: unknown) => {
+  const p = join(dir, `m${counter++}.json`);
+  writeFileSync(p, JSON.stringify(content));
+  return p;
+};
+const model = (elements: unknown[], couplings: unknown[] = []) => ({ schema: 'coilwright.graph/1', frequencyHz: 50, amplitudes: 'rms', ground: 'gnd', elements, couplings });
+const rlc = fileWith(model([
+  { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+  { id: 'R1', kind: 'resistor', nodes: ['a', 'b'], ohms: 10 },
+  { id: 'L1', kind: 'inductor', nodes: ['b', 'c'], henries: 1e-3 },
+  { id: 'C1', kind: 'capacitor', nodes: ['c', 'gnd'], farads: 1e-6 },
+]));
+
+describe('tf from the command line', () => {
+  it('prints the transfer function of a series RLC: H = ω0²/(s² + (R/L)s + ω0²) at the capacitor', () => {
+    const r = run(['tf', rlc, '--input', 'V1', '--output', 'node:c']);
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    const t = JSON.parse(r.stdout);
+    expect(t.schema).toBe('coilwright.transfer/1');
+    expect(t.input).toBe('V1');
+    expect(t.output).toBe('node:c');
+    // series RLC, standard second-order circuit (from memory): ω0² = 1/(LC) = 1e9, R/L = 1e4
+    expect(t.gain).toBeCloseTo(1e9, -1);
+    expect(t.denominator[0]).toBe(1);
+    expect(t.denominator[1] / 1e4).toBeCloseTo(1, 12);
+    expect(t.denominator[2] / 1e9).toBeCloseTo(1, 12);
+    expect(t.zeros).toEqual([]);
+    expect(t.poles).toHaveLength(2);
+    expect(t.naturalFrequencies).toHaveLength(2);
+    expect(t.warnings).toEqual([]);
+  });
+
+  const usage: [string, string[], RegExp][] = [
+    ['an unknown source', ['--input', 'V9', '--output', 'node:c'], /--input: "V9" is not an element/],
+    ['an input that is not a source', ['--input', 'R1', '--output', 'node:c'], /"R1" is a resistor, not a voltage or current source/],
+    ['an unknown node', ['--input', 'V1', '--output', 'node:zz'], /"zz" is not a node/],
+    ['an unknown element', ['--input', 'V1', '--output', 'current:X1'], /"X1" is not an element/],
+    ['an output of the wrong form', ['--input', 'V1', '--output', 'charge:C1'], /--output must be node:NAME, voltage:ELEMENT or current:ELEMENT/],
+    ['a missing --output', ['--input', 'V1'], /tf needs --output/],
+    ['a missing --input', ['--output', 'node:c'], /tf needs --input/],
+  ];
+  for (const [name, args, message] of usage) {
+    it(`is a usage error: ${name}`, () => {
+      const r = run(['tf', rlc, ...args]);
+      expect(r.status).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr.trim().split('\n')).toHaveLength(1);
+      expect(r.stderr).toMatch(message);
+    });
+  }
+
+  it('refuses a loop of voltage sources as solve does (exit 1, one line naming it)', () => {
+    const f = fileWith(model([
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'V2', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 2, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'gnd'], ohms: 1 },
+    ]));
+    const r = run(['tf', f, '--input', 'V1', '--output', 'node:a']);
+    expect(r.status).toBe(1);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(/"V2".*"V1".*loop of voltage sources/);
+  });
+
+  it('refuses a cut set of current sources (exit 1)', () => {
+    const f = fileWith(model([
+      { id: 'I1', kind: 'current-source', nodes: ['gnd', 'a'], magnitude: 1, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'b'], ohms: 1 },
+      { id: 'C1', kind: 'capacitor', nodes: ['b', 'a'], farads: 1e-6 },
+    ]));
+    const r = run(['tf', f, '--input', 'I1', '--output', 'node:a']);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toMatch(/"I1".*cut set of current sources/);
+  });
+});
