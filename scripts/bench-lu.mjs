@@ -1,5 +1,7 @@
-// Micro-benchmark of the complex sparse LU on an MNA-like 2-D grid and an RLC ladder.
-// Usage: node scripts/bench-lu.mjs [grid|ladder] [sizes...]   (default both families, 1000 10000 100000)
+// Micro-benchmark of the complex sparse LU on an MNA-like 2-D grid, an RLC ladder and a star (one hub node
+// joined to every other node).
+// Usage: node scripts/bench-lu.mjs [grid|ladder|star] [sizes...]
+//   default: grid and ladder at 1000 10000 100000; star alone defaults to 100000 300000 1000000
 // LU_SRC=/path/to/sparse/index.ts runs another version of the LU under the same conditions.
 //
 // Times are CPU time (process.cpuUsage, user + system, all threads of the process): the machine is
@@ -18,15 +20,16 @@ const self = fileURLToPath(import.meta.url);
 const args = process.argv.slice(2);
 
 if (args[0] !== '--child') {
-  const family = args.find((a) => a === 'grid' || a === 'ladder');
+  const family = args.find((a) => a === 'grid' || a === 'ladder' || a === 'star');
   const sizes = args.filter((a) => a !== family).map(Number);
+  const defaults = family === 'star' ? [100000, 300000, 1000000] : [1000, 10000, 100000];
   const dir = mkdtempSync(join(tmpdir(), 'bench-lu-'));
   try {
     const out = join(dir, 'sparse.mjs');
     await build({ entryPoints: [process.env.LU_SRC || join(here, '../src/solver/sparse/index.ts')], bundle: true, format: 'esm', platform: 'neutral', outfile: out, logLevel: 'error' });
     for (const fam of family ? [family] : ['grid', 'ladder']) {
-      for (const N of sizes.length ? sizes : [1000, 10000, 100000]) {
-        const { pattern, values } = fam === 'grid' ? mnaGrid(N) : mnaLadder(N);
+      for (const N of sizes.length ? sizes : defaults) {
+        const { pattern, values } = fam === 'grid' ? mnaGrid(N) : fam === 'star' ? mnaStar(N) : mnaLadder(N);
         const file = join(dir, 'matrix.bin');
         const n = pattern.n;
         const nz = pattern.colPtr[n];
@@ -99,6 +102,35 @@ function mnaLadder(nTarget, f = 50e3, seed = 2) {
     prev = node;
   }
   return toCsc(n, cols);
+}
+
+/** Star: hub node 0 joined to N - 2 leaves by conductances, each leaf loaded to ground, a source branch on the hub. */
+function mnaStar(nTarget, seed = 3) {
+  let s = seed >>> 0;
+  const rnd = () => ((s = (s * 1664525 + 1013904223) >>> 0) / 4294967296);
+  const n = Math.max(3, nTarget);
+  const leaves = n - 2;
+  const br = n - 1;
+  // built column by column (sorted rows) without maps: the hub column holds every row
+  const colPtr = new Int32Array(n + 1);
+  const nnz = 1 + leaves + 1 + 2 * leaves + 1;
+  const rowIdx = new Int32Array(nnz), re = new Float64Array(nnz), im = new Float64Array(nnz);
+  const g = Float64Array.from({ length: leaves }, () => 10 ** (-3 + 3 * rnd()));
+  let p = 0;
+  let hub = 0;
+  for (let i = 0; i < leaves; i++) hub += g[i];
+  rowIdx[p] = 0; re[p] = hub; im[p] = 1e-6; p++;
+  for (let i = 0; i < leaves; i++) { rowIdx[p] = 1 + i; re[p] = -g[i]; p++; }
+  rowIdx[p] = br; re[p] = 1; p++;
+  colPtr[1] = p;
+  for (let i = 0; i < leaves; i++) {
+    rowIdx[p] = 0; re[p] = -g[i]; p++;
+    rowIdx[p] = 1 + i; re[p] = g[i] + 1e-4 * (1 + rnd()); im[p] = 1e-6; p++;
+    colPtr[2 + i] = p;
+  }
+  rowIdx[p] = 0; re[p] = 1; p++;
+  colPtr[n] = p;
+  return { pattern: { n, colPtr, rowIdx }, values: { re, im } };
 }
 
 function toCsc(n, cols) {
@@ -178,7 +210,7 @@ function once() {
   return { lu, b2, c2, a, f, s, tot: a + f + s, r, rs: r + s2 };
 }
 
-const reps = N >= 100000 ? 5 : N >= 10000 ? 15 : 41;
+const reps = N >= 300000 ? 3 : N >= 100000 ? 5 : N >= 10000 ? 15 : 41;
 const cold = once(); // includes JIT warm-up for this size
 const maxRss = process.resourceUsage().maxRSS * 1024;
 const held = process.memoryUsage().arrayBuffers - ab0; // typed arrays the first LU holds (and its right-hand sides)

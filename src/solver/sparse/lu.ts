@@ -19,12 +19,14 @@
  * columns of the reach in ascending pivot order for that; a non-last column of
  * a run is searched through its first row alone. L and U are sized up front
  * from the Cholesky count of A + A^T that the ordering reports, and L is
- * sorted in place at the end; refactor() replays the numeric work without any
+ * sorted in place at the end (sort.ts: a run-aware merge sort, as the lists a
+ * depth-first search leaves defeat a quicksort); refactor() replays the numeric work without any
  * graph search. solve() checks the backward error of its answer and refines
  * it when threshold pivoting has cost digits. Input values are split re/im;
  * the factors keep re and im interleaved.
  */
 import { amdAnalyze } from './amd';
+import { sortColumns, sortInts } from './sort';
 import { SingularMatrixError, type ComplexValues, type CscPattern } from './types';
 
 export interface LuSymbolic {
@@ -179,47 +181,6 @@ function update4(
  * G of 1 to 15.
  */
 const GROWTH_UNCHECKED = 16;
-
-/** Sorts a[lo..hi) ascending in place, without allocating: quicksort (median of three), insertion sort below 24. */
-function sortRange(a: Int32Array, lo: number, hi: number): void {
-  while (hi - lo > 24) {
-    const mid = (lo + hi) >> 1;
-    const x = a[lo];
-    const y = a[mid];
-    const z = a[hi - 1];
-    const pivot = x < y ? (y < z ? y : x < z ? z : x) : x < z ? x : y < z ? z : y; // median of the three
-    let i = lo;
-    let j = hi - 1;
-    while (i <= j) {
-      while (a[i] < pivot) i++;
-      while (a[j] > pivot) j--;
-      if (i <= j) {
-        const t = a[i];
-        a[i] = a[j];
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    // recurse into the smaller part, loop on the larger (depth O(log n))
-    if (j + 1 - lo < hi - i) {
-      sortRange(a, lo, j + 1);
-      lo = i;
-    } else {
-      sortRange(a, i, hi);
-      hi = j + 1;
-    }
-  }
-  for (let i = lo + 1; i < hi; i++) {
-    const v = a[i];
-    let j = i - 1;
-    while (j >= lo && a[j] > v) {
-      a[j + 1] = a[j];
-      j--;
-    }
-    a[j + 1] = v;
-  }
-}
 
 export class ComplexSparseLU {
   readonly sym: LuSymbolic;
@@ -407,7 +368,7 @@ export class ComplexSparseLU {
         const jn = pinv[reach[t]];
         if (jn >= 0) stack[m++] = jn;
       }
-      sortRange(stack, 0, m);
+      sortInts(stack, 0, m, pstack);
       if (amax2 > aAll2) aAll2 = amax2;
       let scale2 = amax2;
       for (let s = 0; s < m; s++) {
@@ -613,45 +574,11 @@ export class ComplexSparseLU {
     Up[n] = unz;
     for (let p = 0; p < lnz; p++) Li[p] = pinv[Li[p]];
     // ascending pivot order: U in a topological order for refactor(), L columns of a supernode aligned
-    this.sortColumns(Lp, Li, Lx); // U is sorted already
+    sortColumns(n, Lp, Li, Lx, 2, x, stack); // U is sorted already
     this.growth2 = aAll2 > 0 ? g2 / aAll2 : Infinity;
     if (this.checksResidual()) this.keepValues(values);
     this.findSupernodes();
     this.factored = true;
-  }
-
-  /**
-   * Sorts the row indices of every column ascending, values along, in place: the values of a column go to
-   * the dense work vector (zero between columns) by row, the indices are sorted, the values come back.
-   */
-  private sortColumns(cp: Int32Array, ci: Int32Array, cx: Float64Array): void {
-    const n = this.sym.n;
-    const x = this.x;
-    for (let j = 0; j < n; j++) {
-      const s = cp[j];
-      const e = cp[j + 1];
-      let sorted = true;
-      for (let p = s + 1; p < e; p++) {
-        if (ci[p] < ci[p - 1]) {
-          sorted = false;
-          break;
-        }
-      }
-      if (sorted) continue;
-      for (let p = s; p < e; p++) {
-        const i2 = 2 * ci[p];
-        x[i2] = cx[2 * p];
-        x[i2 + 1] = cx[2 * p + 1];
-      }
-      sortRange(ci, s, e);
-      for (let p = s; p < e; p++) {
-        const i2 = 2 * ci[p];
-        cx[2 * p] = x[i2];
-        cx[2 * p + 1] = x[i2 + 1];
-        x[i2] = 0;
-        x[i2 + 1] = 0;
-      }
-    }
   }
 
   /** Columns j and j+1 share a supernode when L(:,j) = {j+1} ∪ L(:,j+1) (columns sorted). */

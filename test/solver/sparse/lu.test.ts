@@ -320,6 +320,49 @@ describe('pivoting on MNA structure', () => {
   });
 });
 
+describe('degenerate patterns', () => {
+  it('factors and solves a star of 300,000 leaves (one hub joined to every node, a source branch on it)', () => {
+    // The hub's column lists every leaf, in the reverse of their pivot order, then the hub: the pattern
+    // that made a median-of-three quicksort quadratic. Checked here: the answer, against the closed form
+    // of the circuit, and no fill (a leaf eliminated before the hub touches nothing else).
+    const leaves = 300000;
+    const n = leaves + 2; // hub 0, leaves 1..leaves, source branch n-1
+    const colPtr = new Int32Array(n + 1);
+    const rowIdx = new Int32Array(4 * leaves + 3);
+    const re = new Float64Array(4 * leaves + 3);
+    const g = (i: number) => 1 / (1 + (i % 7)); // R_i = 1 .. 7 Ohm hub to leaf i; each leaf 1 kOhm to ground
+    let p = 0;
+    let hub = 0;
+    for (let i = 1; i <= leaves; i++) hub += g(i);
+    rowIdx[p] = 0;
+    re[p++] = hub;
+    for (let i = 1; i <= leaves; i++) (rowIdx[p] = i), (re[p++] = -g(i));
+    rowIdx[p] = n - 1;
+    re[p++] = 1;
+    colPtr[1] = p;
+    for (let i = 1; i <= leaves; i++) {
+      rowIdx[p] = 0;
+      re[p++] = -g(i);
+      rowIdx[p] = i;
+      re[p++] = g(i) + 1e-3;
+      colPtr[i + 1] = p;
+    }
+    rowIdx[p] = 0;
+    re[p++] = 1;
+    colPtr[n] = p;
+    const pattern = { n, colPtr, rowIdx: rowIdx.subarray(0, p) };
+    const lu = new ComplexSparseLU(analyze(pattern));
+    lu.factor({ re: re.subarray(0, p), im: new Float64Array(p) });
+    expect(lu.nnzL + lu.nnzU).toBeLessThanOrEqual(p + n);
+    const xr = new Float64Array(n);
+    const xi = new Float64Array(n);
+    xr[n - 1] = 10; // 10 V source on the hub
+    lu.solve(xr, xi);
+    expect(xr[0]).toBeCloseTo(10, 12);
+    for (const i of [1, 2, 7, leaves]) expect(xr[i]).toBeCloseTo((10 * 1000) / (1000 + 1 + (i % 7)), 11); // divider R_i, 1 kOhm
+  });
+});
+
 describe('refactor', () => {
   it('gives the same answer as a fresh factor when values change', () => {
     const m = mnaGrid(12, 6, 3);
