@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import * as math from 'mathjs';
 import { analyze, ComplexSparseLU } from '../../../src/solver/sparse/lu';
 import { SingularMatrixError } from '../../../src/solver/sparse/types';
-import { type CscMatrix, fromDense, fromTriplets, mnaGrid, relResidual, rng, toDense } from './helpers';
+import { type CscMatrix, fromDense, fromTriplets, mnaGrid, randomSparse, relResidual, rng, toDense } from './helpers';
 
 /** Reference solution from mathjs `lusolve` (dense LU with partial pivoting), an independent implementation. */
 function mathjsSolve(m: CscMatrix, br: Float64Array, bi: Float64Array): { re: number[]; im: number[] } {
@@ -47,24 +47,7 @@ const sparseMatrix = fc
     density: fc.double({ min: 0.05, max: 0.5, noNaN: true }),
     zeroDiag: fc.double({ min: 0, max: 0.7, noNaN: true }),
   })
-  .map(({ n, seed, density, zeroDiag }) => {
-    const r = rng(seed);
-    const perm = Array.from({ length: n }, (_, i) => i);
-    for (let i = n - 1; i > 0; i--) {
-      const j = Math.floor(r() * (i + 1));
-      [perm[i], perm[j]] = [perm[j], perm[i]];
-    }
-    const t: Array<[number, number, number, number]> = [];
-    for (let j = 0; j < n; j++) {
-      for (let i = 0; i < n; i++) {
-        if (i === j && r() < zeroDiag) continue;
-        if (i === j || r() < density) t.push([i, j, 2 * r() - 1, 2 * r() - 1]);
-      }
-      t.push([perm[j], j, 3 + r(), r() - 0.5]); // a strong entry on a random permutation
-    }
-    // drop structural diagonals that cancelled to keep "zero diagonal" rows honest
-    return fromTriplets(n, t);
-  });
+  .map(({ n, seed, density, zeroDiag }) => randomSparse(n, seed, density, zeroDiag));
 
 describe('ComplexSparseLU against mathjs lusolve', () => {
   it('solves random sparse complex systems, including zero diagonals', () => {
@@ -573,5 +556,30 @@ describe('API guards', () => {
     // closed form: 4 / (2 + 2i) = 1 - i
     expect(x[0][0]).toBeCloseTo(1, 15);
     expect(x[1][0]).toBeCloseTo(-1, 15);
+  });
+});
+
+describe('solveTransposed (complex) against mathjs lusolve on the transpose and the conjugate transpose', () => {
+  it('solves A^T x = b and A^H x = b', () => {
+    for (let seed = 1; seed <= 60; seed++) {
+      const n = 1 + (seed % 14);
+      const m = randomSparse(n, seed, 0.3, 0.4, false);
+      const d = toDense(m);
+      const lu = new ComplexSparseLU(analyze(m.pattern));
+      lu.factor(m.values);
+      const r = rng(seed);
+      const br = Float64Array.from({ length: n }, () => r() - 0.5);
+      const bi = Float64Array.from({ length: n }, () => r() - 0.5);
+      for (const conj of [false, true]) {
+        // the transpose written out: (A^T)_ij = a_ji, conjugated for A^H
+        const At = d.re.map((row, i) => row.map((_, j) => math.complex(d.re[j][i], conj ? -d.im[j][i] : d.im[j][i])));
+        const ref = math.lusolve(At, Array.from(br, (v, i) => [math.complex(v, bi[i])])) as unknown as math.Complex[][];
+        const xr = br.slice();
+        const xi = bi.slice();
+        lu.solveTransposed(xr, xi, conj);
+        const size = Math.max(...ref.map((c) => Math.hypot(c[0].re, c[0].im)));
+        for (let i = 0; i < n; i++) expect(Math.hypot(xr[i] - ref[i][0].re, xi[i] - ref[i][0].im)).toBeLessThanOrEqual(1e-9 * size);
+      }
+    }
   });
 });

@@ -1,0 +1,111 @@
+/**
+ * Complex sparse LU for the MNA solver at a frequency (KLU-style left-looking LU: see structure.ts for the
+ * graph work and lu-base.ts for pivoting, refactor and refinement). Input values are split re/im; the
+ * factors keep re and im interleaved.
+ */
+import { complexKernels } from './complex-kernels';
+import { residual, solveFactors, solveFactorsT } from './complex-solve';
+import { copy, SparseLuBase } from './lu-base';
+import { resolveOptions, type LuOptions } from './options';
+import type { LuSymbolic } from './symbolic';
+import type { ComplexValues } from './types';
+
+const EMPTY: Float64Array = new Float64Array(0);
+
+export class ComplexSparseLU extends SparseLuBase<ComplexValues> {
+  // a copy of the values factored, made when solve() checks its residual
+  private ownRe: Float64Array = EMPTY;
+  private ownIm: Float64Array = EMPTY;
+  // the values last factored, for the residual: own*, or the caller's arrays themselves
+  private ar: Float64Array = EMPTY;
+  private ai: Float64Array = EMPTY;
+  // right-hand side of the solve in progress, and work vectors of its refinement
+  private bRe: Float64Array = EMPTY;
+  private bIm: Float64Array = EMPTY;
+  private readonly kRe: Float64Array;
+  private readonly kIm: Float64Array;
+  private readonly rRe: Float64Array;
+  private readonly rIm: Float64Array;
+
+  constructor(sym: LuSymbolic, options: LuOptions = {}) {
+    super(sym, resolveOptions(options), 2, complexKernels);
+    const n = sym.n;
+    this.kRe = new Float64Array(n);
+    this.kIm = new Float64Array(n);
+    this.rRe = new Float64Array(n);
+    this.rIm = new Float64Array(n);
+  }
+
+  /** Solves A x = b in place: on return bRe/bIm hold x (see SparseLuBase.solveInPlace for refinement). */
+  solve(bRe: Float64Array, bIm: Float64Array): void {
+    this.run(bRe, bIm, false, false, 'solve');
+  }
+
+  /** Solves A^T x = b in place, or A^H x = b (conjugate transpose) when `conjugate`. */
+  solveTransposed(bRe: Float64Array, bIm: Float64Array, conjugate = false): void {
+    this.run(bRe, bIm, true, conjugate, 'solveTransposed');
+  }
+
+  protected load(values: ComplexValues): void {
+    const nz = this.sym.pattern.colPtr[this.sym.n];
+    if (values.re.length < nz || values.im.length < nz) throw new RangeError(`values must hold ${nz} entries`);
+    this.va = values.re;
+    this.vb = values.im;
+  }
+
+  private own(nz: number): void {
+    this.ownRe = new Float64Array(nz);
+    this.ownIm = new Float64Array(nz);
+  }
+
+  /** After a factorisation: what the residual reads (see ar, ai). */
+  protected keep(values: ComplexValues): void {
+    const nz = this.sym.pattern.colPtr[this.sym.n];
+    if (this.checksResidual()) {
+      if (this.ownRe.length !== nz) this.own(nz);
+      copy(values.re, this.ownRe, nz);
+      copy(values.im, this.ownIm, nz);
+      this.va = this.ownRe;
+      this.vb = this.ownIm;
+    }
+    this.ar = this.va;
+    this.ai = this.vb;
+    this.va = this.vb = EMPTY; // hold no reference beyond ar, ai
+  }
+
+  private run(bRe: Float64Array, bIm: Float64Array, transposed: boolean, conj: boolean, what: string): void {
+    this.requireFactors(what);
+    const n = this.sym.n;
+    if (bRe.length < n || bIm.length < n) throw new RangeError(`right-hand side must hold ${n} entries`);
+    this.bRe = bRe;
+    this.bIm = bIm;
+    try {
+      this.solveInPlace(transposed, conj);
+    } finally {
+      this.bRe = this.bIm = EMPTY;
+    }
+  }
+
+  // ---- hooks of SparseLuBase for solve ----
+  protected applyFactors(correction: boolean, transposed: boolean, conj: boolean): void {
+    const re = correction ? this.rRe : this.bRe;
+    const im = correction ? this.rIm : this.bIm;
+    if (transposed) solveFactorsT(this.core, re, im, conj);
+    else solveFactors(this.core, re, im);
+  }
+  protected keepRhs(): void {
+    copy(this.bRe, this.kRe, this.sym.n);
+    copy(this.bIm, this.kIm, this.sym.n);
+  }
+  protected residual(transposed: boolean, conj: boolean): number {
+    const { n, colPtr, rowIdx } = this.sym.pattern;
+    return residual(n, colPtr, rowIdx, this.ar, this.ai, this.bRe, this.bIm, this.kRe, this.kIm, this.rRe, this.rIm, transposed, conj);
+  }
+  protected correct(): void {
+    const { bRe, bIm, rRe, rIm } = this;
+    for (let i = 0, n = this.sym.n; i < n; i++) {
+      bRe[i] += rRe[i];
+      bIm[i] += rIm[i];
+    }
+  }
+}

@@ -1,0 +1,84 @@
+/**
+ * Real sparse LU, the twin of ComplexSparseLU for real matrices (the time-domain system G + C/h): the same
+ * symbolic analysis, structure, pivoting rules and options, with real kernels. solve() allocates nothing.
+ */
+import { copy, SparseLuBase } from './lu-base';
+import { resolveOptions, type LuOptions } from './options';
+import { realKernels } from './real-kernels';
+import { residual, solveFactors, solveFactorsT } from './real-solve';
+import type { LuSymbolic } from './symbolic';
+
+const EMPTY: Float64Array = new Float64Array(0);
+
+export class RealSparseLU extends SparseLuBase<Float64Array> {
+  /** a copy of the values factored, made when solve() checks its residual */
+  private own: Float64Array = EMPTY;
+  /** the values last factored, for the residual (see ComplexSparseLU) */
+  private a: Float64Array = EMPTY;
+  private b: Float64Array = EMPTY;
+  private readonly kb: Float64Array;
+  private readonly r: Float64Array;
+
+  constructor(sym: LuSymbolic, options: LuOptions = {}) {
+    super(sym, resolveOptions(options), 1, realKernels);
+    this.kb = new Float64Array(sym.n);
+    this.r = new Float64Array(sym.n);
+  }
+
+  /** Solves A x = b in place; allocates nothing. */
+  solve(b: Float64Array): void {
+    this.run(b, false, 'solve');
+  }
+
+  /** Solves A^T x = b in place. */
+  solveTransposed(b: Float64Array): void {
+    this.run(b, true, 'solveTransposed');
+  }
+
+  protected load(values: Float64Array): void {
+    const nz = this.sym.pattern.colPtr[this.sym.n];
+    if (values.length < nz) throw new RangeError(`values must hold ${nz} entries`);
+    this.va = values;
+  }
+
+  /** After a factorisation: what the residual reads. */
+  protected keep(values: Float64Array): void {
+    const nz = this.sym.pattern.colPtr[this.sym.n];
+    if (this.checksResidual()) {
+      if (this.own.length !== nz) this.own = new Float64Array(nz);
+      copy(values, this.own, nz);
+      this.va = this.own;
+    }
+    this.a = this.va;
+    this.va = EMPTY;
+  }
+
+  private run(b: Float64Array, transposed: boolean, what: string): void {
+    this.requireFactors(what);
+    if (b.length < this.sym.n) throw new RangeError(`right-hand side must hold ${this.sym.n} entries`);
+    this.b = b;
+    try {
+      this.solveInPlace(transposed, false);
+    } finally {
+      this.b = EMPTY;
+    }
+  }
+
+  // ---- hooks of SparseLuBase for solve ----
+  protected applyFactors(correction: boolean, transposed: boolean): void {
+    const b = correction ? this.r : this.b;
+    if (transposed) solveFactorsT(this.core, b);
+    else solveFactors(this.core, b);
+  }
+  protected keepRhs(): void {
+    copy(this.b, this.kb, this.sym.n);
+  }
+  protected residual(transposed: boolean): number {
+    const { n, colPtr, rowIdx } = this.sym.pattern;
+    return residual(n, colPtr, rowIdx, this.a, this.b, this.kb, this.r, transposed);
+  }
+  protected correct(): void {
+    const { b, r } = this;
+    for (let i = 0, n = this.sym.n; i < n; i++) b[i] += r[i];
+  }
+}
