@@ -7,16 +7,18 @@ import { complexKernels } from './complex-kernels';
 import { residual, solveFactors, solveFactorsT } from './complex-solve';
 import { copy, SparseLuBase } from './lu-base';
 import { resolveOptions, type LuOptions } from './options';
+import { applyScaling, equilibrate } from './scaling';
 import type { LuSymbolic } from './symbolic';
 import type { ComplexValues } from './types';
 
 const EMPTY: Float64Array = new Float64Array(0);
 
 export class ComplexSparseLU extends SparseLuBase<ComplexValues> {
-  // a copy of the values factored, made when solve() checks its residual
+  // the values being factored (va, vb of SparseLuBase): the caller's, or their scaled copy in own*
   private ownRe: Float64Array = EMPTY;
   private ownIm: Float64Array = EMPTY;
-  // the values last factored, for the residual: own*, or the caller's arrays themselves
+  // the values last factored, for the residual: own* (scaled, or a copy when solve() checks its
+  // residual), else the caller's arrays themselves
   private ar: Float64Array = EMPTY;
   private ai: Float64Array = EMPTY;
   // right-hand side of the solve in progress, and work vectors of its refinement
@@ -26,6 +28,7 @@ export class ComplexSparseLU extends SparseLuBase<ComplexValues> {
   private readonly kIm: Float64Array;
   private readonly rRe: Float64Array;
   private readonly rIm: Float64Array;
+  private readonly wRe: Float64Array; // |A| |x| + |b| of the componentwise error (scaling on)
 
   constructor(sym: LuSymbolic, options: LuOptions = {}) {
     super(sym, resolveOptions(options), 2, complexKernels);
@@ -34,6 +37,7 @@ export class ComplexSparseLU extends SparseLuBase<ComplexValues> {
     this.kIm = new Float64Array(n);
     this.rRe = new Float64Array(n);
     this.rIm = new Float64Array(n);
+    this.wRe = this.scaled ? new Float64Array(n) : EMPTY;
   }
 
   /** Solves A x = b in place: on return bRe/bIm hold x (see SparseLuBase.solveInPlace for refinement). */
@@ -46,11 +50,19 @@ export class ComplexSparseLU extends SparseLuBase<ComplexValues> {
     this.run(bRe, bIm, true, conjugate, 'solveTransposed');
   }
 
-  protected load(values: ComplexValues): void {
-    const nz = this.sym.pattern.colPtr[this.sym.n];
+  protected load(values: ComplexValues, fresh: boolean): void {
+    const { n, colPtr: Ap, rowIdx: Ai } = this.sym.pattern;
+    const nz = Ap[n];
     if (values.re.length < nz || values.im.length < nz) throw new RangeError(`values must hold ${nz} entries`);
-    this.va = values.re;
-    this.vb = values.im;
+    if (!this.scaled) {
+      this.va = values.re;
+      this.vb = values.im;
+      return;
+    }
+    if (this.ownRe.length !== nz) this.own(nz);
+    if (fresh) equilibrate(n, Ap, Ai, values.re, values.im, this.rs, this.cs);
+    applyScaling(n, Ap, Ai, values.re, this.rs, this.cs, (this.va = this.ownRe));
+    applyScaling(n, Ap, Ai, values.im, this.rs, this.cs, (this.vb = this.ownIm));
   }
 
   private own(nz: number): void {
@@ -61,7 +73,7 @@ export class ComplexSparseLU extends SparseLuBase<ComplexValues> {
   /** After a factorisation: what the residual reads (see ar, ai). */
   protected keep(values: ComplexValues): void {
     const nz = this.sym.pattern.colPtr[this.sym.n];
-    if (this.checksResidual()) {
+    if (!this.scaled && this.checksResidual()) {
       if (this.ownRe.length !== nz) this.own(nz);
       copy(values.re, this.ownRe, nz);
       copy(values.im, this.ownIm, nz);
@@ -70,7 +82,7 @@ export class ComplexSparseLU extends SparseLuBase<ComplexValues> {
     }
     this.ar = this.va;
     this.ai = this.vb;
-    this.va = this.vb = EMPTY; // hold no reference beyond ar, ai
+    if (!this.scaled) this.va = this.vb = EMPTY; // hold no reference beyond ar, ai
   }
 
   private run(bRe: Float64Array, bIm: Float64Array, transposed: boolean, conj: boolean, what: string): void {
@@ -99,13 +111,21 @@ export class ComplexSparseLU extends SparseLuBase<ComplexValues> {
   }
   protected residual(transposed: boolean, conj: boolean): number {
     const { n, colPtr, rowIdx } = this.sym.pattern;
-    return residual(n, colPtr, rowIdx, this.ar, this.ai, this.bRe, this.bIm, this.kRe, this.kIm, this.rRe, this.rIm, transposed, conj);
+    // with scaling, the normwise error of the scaled system says little about x = C y: the componentwise one
+    return residual(n, colPtr, rowIdx, this.ar, this.ai, this.bRe, this.bIm, this.kRe, this.kIm, this.rRe, this.rIm, transposed, conj, this.scaled ? this.wRe : null);
   }
   protected correct(): void {
     const { bRe, bIm, rRe, rIm } = this;
     for (let i = 0, n = this.sym.n; i < n; i++) {
       bRe[i] += rRe[i];
       bIm[i] += rIm[i];
+    }
+  }
+  protected scaleVector(by: Float64Array): void {
+    const { bRe, bIm } = this;
+    for (let i = 0, n = this.sym.n; i < n; i++) {
+      bRe[i] *= by[i];
+      bIm[i] *= by[i];
     }
   }
 }

@@ -124,7 +124,10 @@ export function solveFactorsT(f: Factors, bRe: Float64Array, bIm: Float64Array, 
 /**
  * r = b - op(A) x for the values a (op = identity, or the transpose, conjugated when conj). Returns the
  * normwise backward error max|r_i| / (max|a_ij| max|x_j| + max|b_i|) (N. J. Higham, "Accuracy and
- * Stability of Numerical Algorithms", 2nd ed., 2002, section 7.1), NaN when x is not finite.
+ * Stability of Numerical Algorithms", 2nd ed., 2002, section 7.1), NaN when x is not finite; or, given the
+ * work vector w, the componentwise one max_i |r_i| / (|op(A)| |x| + |b|)_i (W. Oettli, W. Prager, Numer.
+ * Math. 6, 1964; Higham, ibid., section 7.2) with |z| taken as |re| + |im| (within a factor sqrt 2), which
+ * does not change under row and column scaling as the normwise one does.
  */
 export function residual(
   n: number,
@@ -140,6 +143,7 @@ export function residual(
   rIm: Float64Array,
   transposed: boolean,
   conj: boolean,
+  w: Float64Array | null,
 ): number {
   let bmax2 = 0;
   let xmax2 = 0;
@@ -151,6 +155,7 @@ export function residual(
     rIm[i] = bi;
     const b2 = br * br + bi * bi;
     if (b2 > bmax2) bmax2 = b2;
+    if (w) w[i] = Math.abs(br) + Math.abs(bi);
   }
   for (let j = 0; j < n; j++) {
     const x2 = xRe[j] * xRe[j] + xIm[j] * xIm[j];
@@ -161,6 +166,7 @@ export function residual(
     if (transposed) {
       let sr = 0;
       let si = 0;
+      let sw = 0;
       for (let p = Ap[j], pe = Ap[j + 1]; p < pe; p++) {
         const i = Ai[p];
         const ar = aRe[p];
@@ -169,13 +175,16 @@ export function residual(
         if (a2 > amax2) amax2 = a2;
         sr += ar * xRe[i] - ai * xIm[i];
         si += ar * xIm[i] + ai * xRe[i];
+        if (w) sw += (Math.abs(ar) + Math.abs(ai)) * (Math.abs(xRe[i]) + Math.abs(xIm[i]));
       }
       rRe[j] -= sr;
       rIm[j] -= si;
+      if (w) w[j] += sw;
       continue;
     }
     const vr = xRe[j];
     const vi = xIm[j];
+    const xa = Math.abs(vr) + Math.abs(vi);
     for (let p = Ap[j], pe = Ap[j + 1]; p < pe; p++) {
       const i = Ai[p];
       const ar = aRe[p];
@@ -184,13 +193,20 @@ export function residual(
       if (a2 > amax2) amax2 = a2;
       rRe[i] -= ar * vr - ai * vi;
       rIm[i] -= ar * vi + ai * vr;
+      if (w) w[i] += (Math.abs(ar) + Math.abs(ai)) * xa;
     }
   }
   let rmax2 = 0;
+  let cw = 0;
   for (let i = 0; i < n; i++) {
     const r2 = rRe[i] * rRe[i] + rIm[i] * rIm[i];
     if (r2 > rmax2) rmax2 = r2;
+    if (w && !(r2 === 0)) {
+      const e = w[i] > 0 ? (Math.abs(rRe[i]) + Math.abs(rIm[i])) / w[i] : Infinity;
+      if (!(e <= cw)) cw = e;
+    }
   }
+  if (w) return cw;
   const den = Math.sqrt(amax2 * xmax2) + Math.sqrt(bmax2);
   return den > 0 ? Math.sqrt(rmax2) / den : 0;
 }

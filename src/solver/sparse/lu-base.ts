@@ -1,6 +1,6 @@
 /**
  * What the complex and the real sparse LU share beyond the structure (structure.ts): the column loops of
- * factor and refactor, the singular test, the growth of the factors and the refinement loop
+ * factor and refactor, the singular test, the growth of the factors, scaling and the refinement loop
  * of solve. The arithmetic is the variant's kernels (complex-kernels.ts, real-kernels.ts), passed in as
  * functions, so that every hot loop runs on one kind of typed array and each kernel, a small function of
  * its own, is compiled early.
@@ -24,7 +24,7 @@ import { SingularMatrixError } from './types';
  */
 const GROWTH_UNCHECKED = 16;
 
-const EMPTY: Float64Array = new Float64Array(0);
+const NO_SCALE = new Float64Array(0);
 
 /**
  * The numeric kernels of one arithmetic (complex-kernels.ts, real-kernels.ts). Values come as two arrays,
@@ -44,6 +44,9 @@ export abstract class SparseLuBase<V> {
   protected readonly core: LuCore;
   protected readonly opt: ResolvedLuOptions;
   protected factored = false;
+  /** scale factors S = diag(rs) A diag(cs), powers of two, when opt.scale is on */
+  protected readonly rs: Float64Array;
+  protected readonly cs: Float64Array;
   // growth of the factors: growth2 = G^2 with G = max_k max|L(:,k)| max|U(k,:)| / max|A|, the size of
   // |L||U| that bounds the backward error
   private growth2 = Infinity;
@@ -53,14 +56,17 @@ export abstract class SparseLuBase<V> {
   protected readonly out = new Float64Array(5);
   private readonly kernels: Kernels;
   /** the values being factored (re, im; im empty for the real variant), set by the variant before factoring */
-  protected va: Float64Array = EMPTY;
-  protected vb: Float64Array = EMPTY;
+  protected va: Float64Array = NO_SCALE;
+  protected vb: Float64Array = NO_SCALE;
 
   constructor(sym: LuSymbolic, opt: ResolvedLuOptions, w: number, kernels: Kernels) {
     this.sym = sym;
     this.opt = opt;
     this.kernels = kernels;
     this.core = new LuCore(sym, w);
+    const scaled = opt.scale === 'rows-cols';
+    this.rs = scaled ? new Float64Array(sym.n).fill(1) : NO_SCALE;
+    this.cs = scaled ? new Float64Array(sym.n).fill(1) : NO_SCALE;
   }
 
   /** Entries of L including its unit diagonal. */
@@ -74,7 +80,7 @@ export abstract class SparseLuBase<V> {
 
   /** Full factorisation with threshold partial pivoting. Throws SingularMatrixError(original column). */
   factor(values: V): void {
-    this.load(values);
+    this.load(values, true);
     this.factorColumns();
     this.keep(values);
   }
@@ -89,7 +95,7 @@ export abstract class SparseLuBase<V> {
       this.factor(values);
       return false;
     }
-    this.load(values);
+    this.load(values, false);
     if (this.refactorColumns()) {
       this.keep(values);
       return true;
@@ -98,10 +104,14 @@ export abstract class SparseLuBase<V> {
     return false;
   }
 
-  /** Checks the values and sets va, vb to what the column loops read. */
-  protected abstract load(values: V): void;
+  /** Checks the values and sets va, vb to what the column loops read (scaled when scaling is on; fresh: new scale factors). */
+  protected abstract load(values: V, fresh: boolean): void;
   /** After a factorisation: keeps what the residual reads. */
   protected abstract keep(values: V): void;
+
+  protected get scaled(): boolean {
+    return this.rs.length > 0;
+  }
 
   /** The numeric work of factor() on the values the variant holds. Throws SingularMatrixError(original column). */
   private factorColumns(): void {
@@ -179,7 +189,7 @@ export abstract class SparseLuBase<V> {
     return !(this.growth2 <= GROWTH_UNCHECKED * GROWTH_UNCHECKED);
   }
 
-  /** x = op(A)^-1 b in place (kernels solveFactors/solveFactorsT). */
+  /** x = op(A)^-1 b in place, for the scaled matrix held by the factors (kernels solveFactors/solveFactorsT). */
   protected abstract applyFactors(correction: boolean, transposed: boolean, conj: boolean): void;
   /** Keeps b for the residual. */
   protected abstract keepRhs(): void;
@@ -187,10 +197,13 @@ export abstract class SparseLuBase<V> {
   protected abstract residual(transposed: boolean, conj: boolean): number;
   /** x += r. */
   protected abstract correct(): void;
+  /** b = R b (or C b, transposed) on the way in; x = C x (or R x) on the way out. */
+  protected abstract scaleVector(by: Float64Array): void;
 
   /**
-   * Solves op(A) x = b in place on the variant's right-hand side. Threshold pivoting lets the entries of the
-   * factors grow (up to 1/pivotTol per step), which can cost digits even on a well-conditioned
+   * Solves op(A) x = b in place on the variant's right-hand side. The factors hold S = R A C (R = C = I
+   * without scaling): S y = R b, x = C y; transposed, S^T y = C b, x = R y. Threshold pivoting lets the
+   * entries of the factors grow (up to 1/pivotTol per step), which can cost digits even on a well-conditioned
    * matrix. The backward error is bounded by a small multiple of eps G, G = max_k max|L(:,k)| max|U(k,:)| /
    * max|A| (N. J. Higham, "Accuracy and Stability of Numerical Algorithms", 2nd ed., 2002, section 9.3);
    * when G > GROWTH_UNCHECKED, the backward error of x is measured and, while it is above refineTol, up to
@@ -198,6 +211,7 @@ export abstract class SparseLuBase<V> {
    * approach of KLU's and SuperLU's refinement options).
    */
   protected solveInPlace(transposed: boolean, conj: boolean): void {
+    if (this.scaled) this.scaleVector(transposed ? this.cs : this.rs);
     if (!this.checksResidual()) {
       this.applyFactors(false, transposed, conj);
     } else {
@@ -212,6 +226,7 @@ export abstract class SparseLuBase<V> {
         err = next;
       }
     }
+    if (this.scaled) this.scaleVector(transposed ? this.rs : this.cs);
   }
 
   protected requireFactors(what: string): void {

@@ -5,12 +5,13 @@
  *
  *   symbolic.ts      analyze(): the checked pattern and its column order
  *   structure.ts     reach, pivot bookkeeping, supernodes, pruning, storage (shared)
- *   lu-base.ts       factor / refactor column loops, growth and refinement (shared)
+ *   lu-base.ts       factor / refactor column loops, growth, scaling and refinement (shared)
  *   complex-lu.ts    ComplexSparseLU, with complex-kernels.ts and complex-solve.ts
  *   real-lu.ts       RealSparseLU, with real-kernels.ts and real-solve.ts
+ *   scaling.ts       row and column equilibration by powers of two
  *   sort.ts          run-aware merge sort of index lists
  */
 export { analyze, type LuSymbolic } from './symbolic';
-export type { LuOptions } from './options';
+export type { LuOptions, LuScaling } from './options';
 export { ComplexSparseLU } from './complex-lu';
 export { RealSparseLU } from './real-lu';

@@ -6,23 +6,26 @@ import { copy, SparseLuBase } from './lu-base';
 import { resolveOptions, type LuOptions } from './options';
 import { realKernels } from './real-kernels';
 import { residual, solveFactors, solveFactorsT } from './real-solve';
+import { applyScaling, equilibrate } from './scaling';
 import type { LuSymbolic } from './symbolic';
 
 const EMPTY: Float64Array = new Float64Array(0);
 
 export class RealSparseLU extends SparseLuBase<Float64Array> {
-  /** a copy of the values factored, made when solve() checks its residual */
+  /** the values being factored (va of SparseLuBase): the caller's, or their scaled copy in own */
   private own: Float64Array = EMPTY;
   /** the values last factored, for the residual (see ComplexSparseLU) */
   private a: Float64Array = EMPTY;
   private b: Float64Array = EMPTY;
   private readonly kb: Float64Array;
   private readonly r: Float64Array;
+  private readonly w: Float64Array; // |A| |x| + |b| of the componentwise error (scaling on)
 
   constructor(sym: LuSymbolic, options: LuOptions = {}) {
     super(sym, resolveOptions(options), 1, realKernels);
     this.kb = new Float64Array(sym.n);
     this.r = new Float64Array(sym.n);
+    this.w = this.scaled ? new Float64Array(sym.n) : EMPTY;
   }
 
   /** Solves A x = b in place; allocates nothing. */
@@ -35,22 +38,29 @@ export class RealSparseLU extends SparseLuBase<Float64Array> {
     this.run(b, true, 'solveTransposed');
   }
 
-  protected load(values: Float64Array): void {
-    const nz = this.sym.pattern.colPtr[this.sym.n];
+  protected load(values: Float64Array, fresh: boolean): void {
+    const { n, colPtr: Ap, rowIdx: Ai } = this.sym.pattern;
+    const nz = Ap[n];
     if (values.length < nz) throw new RangeError(`values must hold ${nz} entries`);
-    this.va = values;
+    if (!this.scaled) {
+      this.va = values;
+      return;
+    }
+    if (this.own.length !== nz) this.own = new Float64Array(nz);
+    if (fresh) equilibrate(n, Ap, Ai, values, null, this.rs, this.cs);
+    applyScaling(n, Ap, Ai, values, this.rs, this.cs, (this.va = this.own));
   }
 
   /** After a factorisation: what the residual reads. */
   protected keep(values: Float64Array): void {
     const nz = this.sym.pattern.colPtr[this.sym.n];
-    if (this.checksResidual()) {
+    if (!this.scaled && this.checksResidual()) {
       if (this.own.length !== nz) this.own = new Float64Array(nz);
       copy(values, this.own, nz);
       this.va = this.own;
     }
     this.a = this.va;
-    this.va = EMPTY;
+    if (!this.scaled) this.va = EMPTY;
   }
 
   private run(b: Float64Array, transposed: boolean, what: string): void {
@@ -75,10 +85,14 @@ export class RealSparseLU extends SparseLuBase<Float64Array> {
   }
   protected residual(transposed: boolean): number {
     const { n, colPtr, rowIdx } = this.sym.pattern;
-    return residual(n, colPtr, rowIdx, this.a, this.b, this.kb, this.r, transposed);
+    return residual(n, colPtr, rowIdx, this.a, this.b, this.kb, this.r, transposed, this.scaled ? this.w : null); // see ComplexSparseLU
   }
   protected correct(): void {
     const { b, r } = this;
     for (let i = 0, n = this.sym.n; i < n; i++) b[i] += r[i];
+  }
+  protected scaleVector(by: Float64Array): void {
+    const b = this.b;
+    for (let i = 0, n = this.sym.n; i < n; i++) b[i] *= by[i];
   }
 }

@@ -42,8 +42,11 @@ export function solveFactorsT(f: Factors, b: Float64Array): void {
   }
 }
 
-/** r = b - op(A) x (op = identity or transpose); returns the normwise backward error (complex-solve.ts residual). */
-export function residual(n: number, Ap: Int32Array, Ai: Int32Array, a: Float64Array, x: Float64Array, b: Float64Array, r: Float64Array, transposed: boolean): number {
+/**
+ * r = b - op(A) x (op = identity or transpose); returns the normwise backward error, or with the work vector
+ * w the componentwise one (complex-solve.ts residual).
+ */
+export function residual(n: number, Ap: Int32Array, Ai: Int32Array, a: Float64Array, x: Float64Array, b: Float64Array, r: Float64Array, transposed: boolean, w: Float64Array | null): number {
   let bmax = 0;
   let xmax = 0;
   let amax = 0;
@@ -51,6 +54,7 @@ export function residual(n: number, Ap: Int32Array, Ai: Int32Array, a: Float64Ar
     r[i] = b[i];
     const v = Math.abs(b[i]);
     if (v > bmax) bmax = v;
+    if (w) w[i] = v;
   }
   for (let j = 0; j < n; j++) {
     const v = Math.abs(x[j]);
@@ -59,12 +63,15 @@ export function residual(n: number, Ap: Int32Array, Ai: Int32Array, a: Float64Ar
   for (let j = 0; j < n; j++) {
     if (transposed) {
       let s = 0;
+      let sw = 0;
       for (let p = Ap[j], pe = Ap[j + 1]; p < pe; p++) {
         const v = a[p];
         if (Math.abs(v) > amax) amax = Math.abs(v);
         s += v * x[Ai[p]];
+        if (w) sw += Math.abs(v) * Math.abs(x[Ai[p]]);
       }
       r[j] -= s;
+      if (w) w[j] += sw;
       continue;
     }
     const xj = x[j];
@@ -72,13 +79,20 @@ export function residual(n: number, Ap: Int32Array, Ai: Int32Array, a: Float64Ar
       const v = a[p];
       if (Math.abs(v) > amax) amax = Math.abs(v);
       r[Ai[p]] -= v * xj;
+      if (w) w[Ai[p]] += Math.abs(v) * Math.abs(xj);
     }
   }
   let rmax = 0;
+  let cw = 0;
   for (let i = 0; i < n; i++) {
     const ri = Math.abs(r[i]);
     if (ri > rmax) rmax = ri;
+    if (w && !(ri === 0)) {
+      const e = w[i] > 0 ? ri / w[i] : Infinity;
+      if (!(e <= cw)) cw = e;
+    }
   }
+  if (w) return cw;
   const den = amax * xmax + bmax;
   return den > 0 ? rmax / den : 0;
 }

@@ -232,6 +232,7 @@ describe('RealSparseLU API', () => {
     const lu = new RealSparseLU(analyze(m.pattern));
     expect(() => lu.solve(new Float64Array(9))).toThrow(/before factor/);
     expect(() => lu.factor(new Float64Array(1))).toThrow(RangeError);
+    expect(() => new RealSparseLU(analyze(m.pattern), { scale: 'rows' as never })).toThrow(/scale/);
     const e = new RealSparseLU(analyze({ n: 0, colPtr: new Int32Array(1), rowIdx: new Int32Array(0) }));
     e.factor(new Float64Array(0));
     e.solve(new Float64Array(0));
