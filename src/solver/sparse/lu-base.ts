@@ -106,7 +106,7 @@ export abstract class SparseLuBase<V> {
 
   /** Checks the values and sets va, vb to what the column loops read (scaled when scaling is on; fresh: new scale factors). */
   protected abstract load(values: V, fresh: boolean): void;
-  /** After a factorisation: keeps what the residual reads. */
+  /** After a factorisation: keeps what the residual and the norm of conditionEstimate read. */
   protected abstract keep(values: V): void;
 
   protected get scaled(): boolean {

@@ -9,6 +9,7 @@
  *   complex-lu.ts    ComplexSparseLU, with complex-kernels.ts and complex-solve.ts
  *   real-lu.ts       RealSparseLU, with real-kernels.ts and real-solve.ts
  *   scaling.ts       row and column equilibration by powers of two
+ *   condition.ts     1-norm condition estimate (Hager, Higham)
  *   sort.ts          run-aware merge sort of index lists
  */
 export { analyze, type LuSymbolic } from './symbolic';

@@ -2,6 +2,7 @@
  * Real sparse LU, the twin of ComplexSparseLU for real matrices (the time-domain system G + C/h): the same
  * symbolic analysis, structure, pivoting rules and options, with real kernels. solve() allocates nothing.
  */
+import { inverseNorm1Real } from './condition';
 import { copy, SparseLuBase } from './lu-base';
 import { resolveOptions, type LuOptions } from './options';
 import { realKernels } from './real-kernels';
@@ -14,7 +15,7 @@ const EMPTY: Float64Array = new Float64Array(0);
 export class RealSparseLU extends SparseLuBase<Float64Array> {
   /** the values being factored (va of SparseLuBase): the caller's, or their scaled copy in own */
   private own: Float64Array = EMPTY;
-  /** the values last factored, for the residual (see ComplexSparseLU) */
+  /** the values last factored, for the residual and the norm (see ComplexSparseLU) */
   private a: Float64Array = EMPTY;
   private b: Float64Array = EMPTY;
   private readonly kb: Float64Array;
@@ -38,6 +39,36 @@ export class RealSparseLU extends SparseLuBase<Float64Array> {
     this.run(b, true, 'solveTransposed');
   }
 
+  /**
+   * Estimate of kappa_1(A) of the matrix last factored, and the column of A^-1 it came from (see
+   * ComplexSparseLU, also on the values it reads).
+   */
+  conditionEstimate(): { kappa: number; column: number } {
+    this.requireFactors('conditionEstimate');
+    const n = this.sym.n;
+    const inv = inverseNorm1Real(
+      n,
+      (x) => this.solve(x),
+      (x) => this.solveTransposed(x),
+      new Float64Array(n),
+      new Float64Array(n),
+    );
+    return { kappa: this.norm1() * inv.est, column: inv.column };
+  }
+
+  /** ||A||_1 of the values last factored, unscaled. */
+  private norm1(): number {
+    const { colPtr: Ap, rowIdx: Ai, n } = this.sym.pattern;
+    const { a: v, rs, cs } = this;
+    let norm = 0;
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      for (let p = Ap[j], pe = Ap[j + 1]; p < pe; p++) s += this.scaled ? Math.abs(v[p]) / (rs[Ai[p]] * cs[j]) : Math.abs(v[p]);
+      if (s > norm) norm = s;
+    }
+    return norm;
+  }
+
   protected load(values: Float64Array, fresh: boolean): void {
     const { n, colPtr: Ap, rowIdx: Ai } = this.sym.pattern;
     const nz = Ap[n];
@@ -51,7 +82,7 @@ export class RealSparseLU extends SparseLuBase<Float64Array> {
     applyScaling(n, Ap, Ai, values, this.rs, this.cs, (this.va = this.own));
   }
 
-  /** After a factorisation: what the residual reads. */
+  /** After a factorisation: what the residual and the norm read. */
   protected keep(values: Float64Array): void {
     const nz = this.sym.pattern.colPtr[this.sym.n];
     if (!this.scaled && this.checksResidual()) {
