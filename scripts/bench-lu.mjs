@@ -1,6 +1,12 @@
-// Micro-benchmark of the complex sparse LU on an MNA-like 2-D grid and an RLC ladder.
-// Usage: node scripts/bench-lu.mjs [grid|ladder] [sizes...]   (default both families, 1000 10000 100000)
+// Micro-benchmark of the sparse LU on an MNA-like 2-D grid, an RLC ladder and a star (one hub node joined
+// to every other node).
+// Usage: node scripts/bench-lu.mjs [grid|ladder|star] [sizes...]
+//   default: grid and ladder at 1000 10000 100000; star alone defaults to 100000 300000 1000000
 // LU_SRC=/path/to/sparse/index.ts runs another version of the LU under the same conditions.
+//
+// Per model it prints the complex LU (median of warm runs, and the first call of the process, when the
+// engine has not compiled anything yet) and, when the LU exports RealSparseLU, the real twin on a real
+// matrix of the same pattern (re + im: the shape of G + C/h) with its cost relative to the complex one.
 //
 // Times are CPU time (process.cpuUsage, user + system, all threads of the process): the machine is
 // shared, so wall time would measure the neighbours. This process builds each matrix and writes it to
@@ -18,15 +24,16 @@ const self = fileURLToPath(import.meta.url);
 const args = process.argv.slice(2);
 
 if (args[0] !== '--child') {
-  const family = args.find((a) => a === 'grid' || a === 'ladder');
+  const family = args.find((a) => a === 'grid' || a === 'ladder' || a === 'star');
   const sizes = args.filter((a) => a !== family).map(Number);
+  const defaults = family === 'star' ? [100000, 300000, 1000000] : [1000, 10000, 100000];
   const dir = mkdtempSync(join(tmpdir(), 'bench-lu-'));
   try {
     const out = join(dir, 'sparse.mjs');
     await build({ entryPoints: [process.env.LU_SRC || join(here, '../src/solver/sparse/index.ts')], bundle: true, format: 'esm', platform: 'neutral', outfile: out, logLevel: 'error' });
     for (const fam of family ? [family] : ['grid', 'ladder']) {
-      for (const N of sizes.length ? sizes : [1000, 10000, 100000]) {
-        const { pattern, values } = fam === 'grid' ? mnaGrid(N) : mnaLadder(N);
+      for (const N of sizes.length ? sizes : defaults) {
+        const { pattern, values } = fam === 'grid' ? mnaGrid(N) : fam === 'star' ? mnaStar(N) : mnaLadder(N);
         const file = join(dir, 'matrix.bin');
         const n = pattern.n;
         const nz = pattern.colPtr[n];
@@ -101,6 +108,35 @@ function mnaLadder(nTarget, f = 50e3, seed = 2) {
   return toCsc(n, cols);
 }
 
+/** Star: hub node 0 joined to N - 2 leaves by conductances, each leaf loaded to ground, a source branch on the hub. */
+function mnaStar(nTarget, seed = 3) {
+  let s = seed >>> 0;
+  const rnd = () => ((s = (s * 1664525 + 1013904223) >>> 0) / 4294967296);
+  const n = Math.max(3, nTarget);
+  const leaves = n - 2;
+  const br = n - 1;
+  // built column by column (sorted rows) without maps: the hub column holds every row
+  const colPtr = new Int32Array(n + 1);
+  const nnz = 1 + leaves + 1 + 2 * leaves + 1;
+  const rowIdx = new Int32Array(nnz), re = new Float64Array(nnz), im = new Float64Array(nnz);
+  const g = Float64Array.from({ length: leaves }, () => 10 ** (-3 + 3 * rnd()));
+  let p = 0;
+  let hub = 0;
+  for (let i = 0; i < leaves; i++) hub += g[i];
+  rowIdx[p] = 0; re[p] = hub; im[p] = 1e-6; p++;
+  for (let i = 0; i < leaves; i++) { rowIdx[p] = 1 + i; re[p] = -g[i]; p++; }
+  rowIdx[p] = br; re[p] = 1; p++;
+  colPtr[1] = p;
+  for (let i = 0; i < leaves; i++) {
+    rowIdx[p] = 0; re[p] = -g[i]; p++;
+    rowIdx[p] = 1 + i; re[p] = g[i] + 1e-4 * (1 + rnd()); im[p] = 1e-6; p++;
+    colPtr[2 + i] = p;
+  }
+  rowIdx[p] = 0; re[p] = 1; p++;
+  colPtr[n] = p;
+  return { pattern: { n, colPtr, rowIdx }, values: { re, im } };
+}
+
 function toCsc(n, cols) {
   const colPtr = new Int32Array(n + 1);
   let nnz = 0;
@@ -134,7 +170,7 @@ const MB = 2 ** 20;
 
 const [, bundle, file, fam, sizeArg] = args;
 const N = Number(sizeArg);
-const { analyze, ComplexSparseLU } = await import(pathToFileURL(bundle).href);
+const { analyze, ComplexSparseLU, RealSparseLU } = await import(pathToFileURL(bundle).href);
 const { pattern, values } = (() => {
   const buf = readFileSync(file);
   const [n, nz] = new Int32Array(buf.buffer.slice(buf.byteOffset, buf.byteOffset + 8));
@@ -152,6 +188,8 @@ const { pattern, values } = (() => {
 })();
 const n = pattern.n;
 const v2 = { re: values.re.map((x) => x * 1.01), im: values.im.slice() }; // a sweep point: other values
+const real = values.re.map((x, p) => x + values.im[p]); // G + C/h: a real matrix of the same pattern
+const real2 = real.map((x) => x * 1.01);
 const rss0 = process.memoryUsage().rss;
 const ab0 = process.memoryUsage().arrayBuffers;
 
@@ -175,16 +213,40 @@ function once() {
   lu.solve(b2, c2);
   const s2 = cpuSince(c);
   if (!ok) console.log('  refactor fell back');
-  return { lu, b2, c2, a, f, s, tot: a + f + s, r, rs: r + s2 };
+  return { lu, b2, c2, a, f, s, tot: a + f + s, r, rs: r + s2, sym };
 }
 
-const reps = N >= 100000 ? 5 : N >= 10000 ? 15 : 41;
+/** The real twin on the same symbolic analysis: factor, solve, refactor, solve. */
+function onceReal(sym) {
+  const b = new Float64Array(n).fill(1);
+  let c = process.cpuUsage();
+  const lu = new RealSparseLU(sym);
+  lu.factor(real);
+  const f = cpuSince(c);
+  c = process.cpuUsage();
+  lu.solve(b);
+  const s = cpuSince(c);
+  const b2 = new Float64Array(n).fill(1);
+  c = process.cpuUsage();
+  const ok = lu.refactor(real2);
+  const r = cpuSince(c);
+  c = process.cpuUsage();
+  lu.solve(b2);
+  const s2 = cpuSince(c);
+  if (!ok) console.log('  real refactor fell back');
+  return { lu, b2, f, s, fs: f + s, r, rs: r + s2, s2 };
+}
+
+const reps = N >= 300000 ? 3 : N >= 100000 ? 5 : N >= 10000 ? 15 : 41;
 const cold = once(); // includes JIT warm-up for this size
+const coldReal = RealSparseLU ? onceReal(cold.sym) : null;
 const maxRss = process.resourceUsage().maxRSS * 1024;
-const held = process.memoryUsage().arrayBuffers - ab0; // typed arrays the first LU holds (and its right-hand sides)
+const held = process.memoryUsage().arrayBuffers - ab0; // typed arrays the first LUs hold (and their right-hand sides)
 const runs = [cold];
+const realRuns = [];
 for (let r = 0; r < reps; r++) {
   const run = once();
+  if (RealSparseLU) realRuns.push(onceReal(run.sym));
   run.lu = run.b2 = run.c2 = null; // keep one LU (the first) for the residual check, not all of them
   runs.push(run);
 }
@@ -193,8 +255,22 @@ const { lu, b2, c2 } = cold;
 const [yr, yi] = matvec(pattern, v2, b2, c2);
 let resid = 0;
 for (let i = 0; i < n; i++) resid = Math.max(resid, Math.hypot(yr[i] - 1, yi[i]));
-const f = (k) => median(timed.map((r) => r[k])).toFixed(2).padStart(8);
+const med = (rs, k) => median(rs.map((r) => r[k]));
+const f = (k, rs = timed) => med(rs, k).toFixed(2).padStart(8);
 console.log(`${fam} n=${n} nnz(A)=${pattern.colPtr[n]} nnz(L)=${lu.nnzL} nnz(U)=${lu.nnzU} nnz(L+U-I)=${lu.nnzL + lu.nnzU - n} max|Ax-b|=${resid.toExponential(2)}`);
-console.log(`  CPU ms (median of ${reps}): analyze ${f('a')} factor ${f('f')} solve ${f('s')} | analyze+factor+solve ${f('tot')} | refactor ${f('r')} refactor+solve ${f('rs')} | ratio ${(median(timed.map((r) => r.tot)) / median(timed.map((r) => r.rs))).toFixed(1)}x`);
-console.log(`  first call in this process (cold JIT): analyze ${cold.a.toFixed(1)} factor ${cold.f.toFixed(1)} solve ${cold.s.toFixed(1)}`);
+console.log(`  CPU ms (median of ${reps}): analyze ${f('a')} factor ${f('f')} solve ${f('s')} | analyze+factor+solve ${f('tot')} | refactor ${f('r')} refactor+solve ${f('rs')} | ratio ${(med(timed, 'tot') / med(timed, 'rs')).toFixed(1)}x`);
+const x = (a, b) => `${(a / b).toFixed(1)}x`;
+console.log(`  first call in this process (cold JIT): analyze ${cold.a.toFixed(1)} factor ${cold.f.toFixed(1)} solve ${cold.s.toFixed(1)} | first/warm: analyze ${x(cold.a, med(timed, 'a'))} factor ${x(cold.f, med(timed, 'f'))} solve ${x(cold.s, med(timed, 's'))} refactor ${x(cold.r, med(timed, 'r'))}`);
+if (coldReal) {
+  const rl = coldReal.lu;
+  const b = coldReal.b2;
+  let rr = 0;
+  const { colPtr, rowIdx } = pattern;
+  const y = new Float64Array(n);
+  for (let j = 0; j < n; j++) for (let p = colPtr[j]; p < colPtr[j + 1]; p++) y[rowIdx[p]] += real2[p] * b[j];
+  for (let i = 0; i < n; i++) rr = Math.max(rr, Math.abs(y[i] - 1));
+  const q = (k, kc) => (med(realRuns, k) / med(timed, kc)).toFixed(2);
+  console.log(`  real twin (re + im values) nnz(L+U-I)=${rl.nnzL + rl.nnzU - n} max|Ax-b|=${rr.toExponential(2)}: factor ${f('f', realRuns)} solve ${f('s', realRuns)} refactor ${f('r', realRuns)} refactor+solve ${f('rs', realRuns)} | real/complex: factor ${q('f', 'f')} solve ${q('s', 's')} refactor ${q('r', 'r')}`);
+  console.log(`  real twin first call: factor ${coldReal.f.toFixed(1)} solve ${coldReal.s.toFixed(1)} | first/warm: factor ${x(coldReal.f, med(realRuns, 'f'))}`);
+}
 console.log(`  memory of the first call: peak RSS ${(maxRss / MB).toFixed(1)} MB, ${((maxRss - rss0) / MB).toFixed(1)} MB above the loaded matrix; typed arrays held after it ${(held / MB).toFixed(1)} MB`);

@@ -2,6 +2,7 @@
 // Benchmark of the solver and the command line (`npm run bench`).
 //
 //   node scripts/bench.mjs [--sizes 100,1000,10000,100000] [--no-cli] [--no-mathjs] [--no-memory] [--full]
+//                          [--star-sizes 100000,300000,1000000] [--no-star]
 //
 // Generates RLC ladders and 2-D meshes (scripts/bench/generators.ts) into
 // bench/out/, then measures
@@ -9,6 +10,8 @@
 //     child process per model (scripts/bench/inproc-child.mjs) with a time cap;
 //   - mathjs `lusolve` on the same MNA, dense, where it can finish within 10 s;
 //   - peak memory of a fresh process that reads, solves and sweeps one model;
+//   - a star (one hub node joined to every other node, scripts/bench/generators.ts `star`) in-process at
+//     100k, 300k and 1M nodes, where cost must stay near-linear (scripts/bench/star-child.mjs);
 //   - wall time of the bundled command line against the SciPy script
 //     scripts/bench/scipy_yardstick.py doing the same work from the same file.
 // Prints tables and one line per target; writes bench/out/results.json.
@@ -30,6 +33,7 @@ const CLI = join(ROOT, 'dist-cli', 'coilwright.mjs');
 const YARDSTICK = join(ROOT, 'scripts', 'bench', 'scipy_yardstick.py');
 const INPROC_CHILD = join(ROOT, 'scripts', 'bench', 'inproc-child.mjs');
 const MEM_CHILD = join(ROOT, 'scripts', 'bench', 'mem-child.mjs');
+const STAR_CHILD = join(ROOT, 'scripts', 'bench', 'star-child.mjs');
 const GENERATORS = ['ladder', 'mesh'];
 const SWEEP_ARGS = ['--from', '10', '--to', '100000', '--points', String(SWEEP_POINTS), '--log'];
 
@@ -43,6 +47,9 @@ const option = (name, fallback) => {
 const SIZES = option('--sizes', '100,1000,10000,100000').split(',').map(Number);
 const CLI_SIZES = SIZES.filter((n) => n >= 1000);
 const FULL = flag('--full');
+const STAR_SIZES = flag('--no-star') ? [] : option('--star-sizes', '100000,300000,1000000').split(',').map(Number);
+/** time cap of one star run */
+const STAR_CAP_MS = 120000;
 /** time cap of one in-process child, by model size */
 const inprocCapMs = (n) => (n <= 1000 ? 30000 : n <= 10000 ? 60000 : 90000);
 /** time cap of one memory run (its figure after the solve survives a stop during the sweep) */
@@ -129,13 +136,12 @@ log(`node ${process.version}, ${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}; 
 log(`sizes ${SIZES.map(fmtN).join(', ')} nodes; sweeps of ${SWEEP_POINTS} log-spaced points, 10 Hz .. 100 kHz`);
 log(`load average at start ${loadavg().map((x) => x.toFixed(1)).join(' ')} (wall-clock figures grow with other work on the machine)\n`);
 
-const gen = (
-  await bundle(
-    `export { rlcLadder, mesh2d, probeNode } from './scripts/bench/generators.ts';
-     export { buildDenseMna, mnaSize } from './scripts/bench/dense-mna.ts';`,
-    'generators',
-  )
-).mod;
+const genBundle = await bundle(
+  `export { rlcLadder, mesh2d, star, probeNode } from './scripts/bench/generators.ts';
+   export { buildDenseMna, mnaSize } from './scripts/bench/dense-mna.ts';`,
+  'generators',
+);
+const gen = genBundle.mod;
 
 const results = { date: new Date().toISOString(), node: process.version, sizes: SIZES, cases: [], cli: [], notes: [] };
 let solver = null;
@@ -231,6 +237,17 @@ if (solver) {
       if (m.step !== 'sweep') c.memNote = m.timedOut ? `memory run stopped after ${memCapMs(c.n) / 1000} s${m.step ? `; figure covers the ${m.step} only` : ''}` : `memory run failed: ${m.error}`;
     }
   }
+}
+
+// ---------------------------------------------------------------- star
+const stars = [];
+if (solver) {
+  for (const n of STAR_SIZES) {
+    note(`star ${fmtN(n)}`);
+    const figures = runJsonChild([STAR_CHILD, solverFile, genBundle.file, String(n)], STAR_CAP_MS);
+    stars.push({ n, ...figures });
+  }
+  results.stars = stars;
 }
 
 // ---------------------------------------------------------------- command line
@@ -336,6 +353,22 @@ if (solver) {
     else if (c.mathjsAgreement !== undefined) log(`${tag} mathjs on ${fmtN(c.denseN)} unknowns; node voltages agree with the solver to ${c.mathjsAgreement.toExponential(1)} (relative)`);
     if (c.memNote) log(`${tag} ${c.memNote}`);
   }
+}
+
+if (stars.length) {
+  log('\nStar: one source and N resistors on one node, each leaf loaded to ground (ms, first call of a fresh process)');
+  log(pad([
+    ['nodes', 'validate', 'session', 'factor+solve', 'whole solve', 'growth p'],
+    ...stars.map((c, i) => {
+      const prev = stars[i - 1];
+      const total = (c.validateMs ?? 0) + (c.sessionMs ?? 0) + (c.factorSolveMs ?? 0);
+      const p = prev?.sessionMs && c.sessionMs && c.factorSolveMs ? Math.log(total / ((prev.validateMs ?? 0) + prev.sessionMs + prev.factorSolveMs)) / Math.log(c.n / prev.n) : undefined;
+      return [fmtN(c.n), fmt(c.validateMs), fmt(c.sessionMs), fmt(c.factorSolveMs), fmt(c.solveGraphMs), p === undefined ? '-' : p.toFixed(2)];
+    }),
+  ]));
+  log('  session = createSession (topology, MNA pattern, ordering); factor+solve = its first solveRaw; whole solve =');
+  log('  solveGraph once more in the same process (results included); growth p: time ~ nodes^p of validate + session + factor+solve');
+  for (const c of stars) if (c.timedOut || c.error) log(`  star ${fmtN(c.n)}: ${c.timedOut ? `stopped after ${STAR_CAP_MS / 1000} s; figures missing were not reached` : `failed: ${c.error}`}`);
 }
 
 const cell = (r, key) => (r[`${key}_error`] ? 'ERR' : r[`${key}_skipped`] ? 'skip' : r[`${key}_stoppedMs`] ? `>${fmt(r[`${key}_stoppedMs`])}` : r[`${key}_ms`] ? fmt(r[`${key}_ms`]) + (r[`${key}_runs`] < 3 ? '¹' : '') : '-');

@@ -173,8 +173,34 @@ export function mesh2d(nodes: number, options: GeneratorOptions = {}): GraphMode
   };
 }
 
+/**
+ * Star: one hub node joined to every other node, the degenerate pattern of a bus or a supply rail. A
+ * voltage source drives the hub against ground; resistor i joins the hub to leaf s_i, and each leaf is
+ * loaded to ground by a resistor, so every leaf voltage is the divider V * Rg_i / (R_i + Rg_i).
+ *
+ * Node count is exactly `nodes` (ground, the hub, nodes - 2 leaves).
+ */
+export function star(nodes: number, options: GeneratorOptions = {}): GraphModel {
+  if (!Number.isInteger(nodes) || nodes < 3) throw new RangeError('star needs at least 3 nodes');
+  const rand = mulberry32(options.seed ?? 3);
+  const elements: GraphElement[] = [{ id: 'Vin', kind: 'voltage-source', nodes: ['hub', 'gnd'], magnitude: 10, phaseDeg: 0 }];
+  for (let i = 0; i < nodes - 2; i++) {
+    elements.push({ id: `R${i}`, kind: 'resistor', nodes: ['hub', `s${i}`], ohms: logUniform(rand, 1, 1000) });
+    elements.push({ id: `Rg${i}`, kind: 'resistor', nodes: [`s${i}`, 'gnd'], ohms: logUniform(rand, 1e3, 1e5) });
+  }
+  return {
+    schema: 'coilwright.graph/1',
+    frequencyHz: options.frequencyHz ?? 50,
+    amplitudes: 'rms',
+    ground: 'gnd',
+    elements,
+    couplings: [],
+  };
+}
+
 /** A node a sweep can probe: the far end of the ladder, the centre of the mesh. */
 export function probeNode(generator: GeneratorName, model: GraphModel): string {
+  if (generator === 'star') return 's0';
   if (generator === 'ladder') {
     let last = 0;
     for (const el of model.elements) if (el.kind === 'capacitor') last++;
@@ -197,6 +223,7 @@ export function probeNode(generator: GeneratorName, model: GraphModel): string {
 export const GENERATORS = {
   ladder: rlcLadder,
   mesh: mesh2d,
+  star,
 } as const;
 
 export type GeneratorName = keyof typeof GENERATORS;

@@ -1,1 +1,1 @@
-export { analyze, ComplexSparseLU, type LuSymbolic } from './sparse/lu';
+export { analyze, ComplexSparseLU, RealSparseLU, type LuSymbolic, type LuOptions, type LuScaling } from './sparse/lu';

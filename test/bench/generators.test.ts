@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { gridShape, mesh2d, mulberry32, nodeNames, probeNode, rlcLadder } from '../../scripts/bench/generators';
+import { gridShape, mesh2d, mulberry32, nodeNames, probeNode, rlcLadder, star } from '../../scripts/bench/generators';
 import type { GraphElement, GraphModel } from '../../src/model/graph';
 
 /** Nodes reachable from ground through elements (couplings do not join nodes). */
@@ -152,5 +152,21 @@ describe('mesh2d', () => {
 
   it('probes a node near the centre', () => {
     expect(probeNode('mesh', mesh2d(100))).toBe('n5_6');
+  });
+});
+
+describe('star', () => {
+  it.each([3, 100, 10000])('has exactly %i nodes, all but ground joined to the hub', (n) => {
+    const model = star(n);
+    expect(nodeNames(model).size).toBe(n); // ground, hub, n - 2 leaves
+    checkCommon(model);
+    expect(model.elements).toHaveLength(1 + 2 * (n - 2)); // source, then a resistor to the hub and one to ground per leaf
+    const hubDegree = model.elements.filter((e) => e.nodes.includes('hub')).length;
+    expect(hubDegree).toBe(n - 1); // every leaf and the source: a star (graph definition)
+    expect(probeNode('star', model)).toBe('s0');
+  });
+
+  it('is deterministic', () => {
+    expect(JSON.stringify(star(500, { seed: 5 }))).toBe(JSON.stringify(star(500, { seed: 5 })));
   });
 });

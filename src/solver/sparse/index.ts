@@ -1,3 +1,3 @@
 export { SingularMatrixError, type CscPattern, type ComplexValues } from './types';
 export { amdOrder, amdAnalyze, type AmdOptions } from './amd';
-export { analyze, ComplexSparseLU, type LuSymbolic, type LuOptions } from './lu';
+export { analyze, ComplexSparseLU, RealSparseLU, type LuSymbolic, type LuOptions, type LuScaling } from './lu';

@@ -161,3 +161,45 @@ export function gridPattern(m: number): CscPattern {
   }
   return { n, colPtr, rowIdx: rowIdx.slice(0, nz) };
 }
+
+/**
+ * Random sparse n x n matrix (complex, or with zero imaginary parts when `real`): entries uniform in
+ * (-1, 1) with the given density, some diagonals left out, made nonsingular by a strong entry (3 .. 4) on a
+ * random permutation (the family of lu.test.ts). Invented data for tests only.
+ */
+export function randomSparse(n: number, seed: number, density = 0.3, zeroDiag = 0.3, real = false): CscMatrix {
+  const r = rng(seed);
+  const perm = Array.from({ length: n }, (_, i) => i);
+  for (let i = n - 1; i > 0; i--) {
+    const j = Math.floor(r() * (i + 1));
+    [perm[i], perm[j]] = [perm[j], perm[i]];
+  }
+  const t: Array<[number, number, number, number]> = [];
+  const im = () => (real ? 0 : 2 * r() - 1);
+  for (let j = 0; j < n; j++) {
+    for (let i = 0; i < n; i++) {
+      if (i === j && r() < zeroDiag) continue;
+      if (i === j || r() < density) t.push([i, j, 2 * r() - 1, im()]);
+    }
+    t.push([perm[j], j, 3 + r(), real ? 0 : r() - 0.5]);
+  }
+  return fromTriplets(n, t);
+}
+
+/** The real parts of a matrix's values (its imaginary parts dropped). */
+export function realValues(m: CscMatrix): Float64Array {
+  return m.values.re.slice();
+}
+
+/** y = A x for real x, with the real parts of A. */
+export function matvecReal(m: CscMatrix, x: Float64Array, transposed = false): Float64Array {
+  const { n, colPtr, rowIdx } = m.pattern;
+  const y = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      if (transposed) y[j] += m.values.re[p] * x[rowIdx[p]];
+      else y[rowIdx[p]] += m.values.re[p] * x[j];
+    }
+  }
+  return y;
+}

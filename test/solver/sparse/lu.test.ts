@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import * as math from 'mathjs';
 import { analyze, ComplexSparseLU } from '../../../src/solver/sparse/lu';
 import { SingularMatrixError } from '../../../src/solver/sparse/types';
-import { type CscMatrix, fromDense, fromTriplets, mnaGrid, relResidual, rng, toDense } from './helpers';
+import { type CscMatrix, fromDense, fromTriplets, mnaGrid, randomSparse, relResidual, rng, toDense } from './helpers';
 
 /** Reference solution from mathjs `lusolve` (dense LU with partial pivoting), an independent implementation. */
 function mathjsSolve(m: CscMatrix, br: Float64Array, bi: Float64Array): { re: number[]; im: number[] } {
@@ -47,24 +47,7 @@ const sparseMatrix = fc
     density: fc.double({ min: 0.05, max: 0.5, noNaN: true }),
     zeroDiag: fc.double({ min: 0, max: 0.7, noNaN: true }),
   })
-  .map(({ n, seed, density, zeroDiag }) => {
-    const r = rng(seed);
-    const perm = Array.from({ length: n }, (_, i) => i);
-    for (let i = n - 1; i > 0; i--) {
-      const j = Math.floor(r() * (i + 1));
-      [perm[i], perm[j]] = [perm[j], perm[i]];
-    }
-    const t: Array<[number, number, number, number]> = [];
-    for (let j = 0; j < n; j++) {
-      for (let i = 0; i < n; i++) {
-        if (i === j && r() < zeroDiag) continue;
-        if (i === j || r() < density) t.push([i, j, 2 * r() - 1, 2 * r() - 1]);
-      }
-      t.push([perm[j], j, 3 + r(), r() - 0.5]); // a strong entry on a random permutation
-    }
-    // drop structural diagonals that cancelled to keep "zero diagonal" rows honest
-    return fromTriplets(n, t);
-  });
+  .map(({ n, seed, density, zeroDiag }) => randomSparse(n, seed, density, zeroDiag));
 
 describe('ComplexSparseLU against mathjs lusolve', () => {
   it('solves random sparse complex systems, including zero diagonals', () => {
@@ -320,6 +303,49 @@ describe('pivoting on MNA structure', () => {
   });
 });
 
+describe('degenerate patterns', () => {
+  it('factors and solves a star of 300,000 leaves (one hub joined to every node, a source branch on it)', () => {
+    // The hub's column lists every leaf, in the reverse of their pivot order, then the hub: the pattern
+    // that made a median-of-three quicksort quadratic. Checked here: the answer, against the closed form
+    // of the circuit, and no fill (a leaf eliminated before the hub touches nothing else).
+    const leaves = 300000;
+    const n = leaves + 2; // hub 0, leaves 1..leaves, source branch n-1
+    const colPtr = new Int32Array(n + 1);
+    const rowIdx = new Int32Array(4 * leaves + 3);
+    const re = new Float64Array(4 * leaves + 3);
+    const g = (i: number) => 1 / (1 + (i % 7)); // R_i = 1 .. 7 Ohm hub to leaf i; each leaf 1 kOhm to ground
+    let p = 0;
+    let hub = 0;
+    for (let i = 1; i <= leaves; i++) hub += g(i);
+    rowIdx[p] = 0;
+    re[p++] = hub;
+    for (let i = 1; i <= leaves; i++) (rowIdx[p] = i), (re[p++] = -g(i));
+    rowIdx[p] = n - 1;
+    re[p++] = 1;
+    colPtr[1] = p;
+    for (let i = 1; i <= leaves; i++) {
+      rowIdx[p] = 0;
+      re[p++] = -g(i);
+      rowIdx[p] = i;
+      re[p++] = g(i) + 1e-3;
+      colPtr[i + 1] = p;
+    }
+    rowIdx[p] = 0;
+    re[p++] = 1;
+    colPtr[n] = p;
+    const pattern = { n, colPtr, rowIdx: rowIdx.subarray(0, p) };
+    const lu = new ComplexSparseLU(analyze(pattern));
+    lu.factor({ re: re.subarray(0, p), im: new Float64Array(p) });
+    expect(lu.nnzL + lu.nnzU).toBeLessThanOrEqual(p + n);
+    const xr = new Float64Array(n);
+    const xi = new Float64Array(n);
+    xr[n - 1] = 10; // 10 V source on the hub
+    lu.solve(xr, xi);
+    expect(xr[0]).toBeCloseTo(10, 12);
+    for (const i of [1, 2, 7, leaves]) expect(xr[i]).toBeCloseTo((10 * 1000) / (1000 + 1 + (i % 7)), 11); // divider R_i, 1 kOhm
+  });
+});
+
 describe('refactor', () => {
   it('gives the same answer as a fresh factor when values change', () => {
     const m = mnaGrid(12, 6, 3);
@@ -530,5 +556,30 @@ describe('API guards', () => {
     // closed form: 4 / (2 + 2i) = 1 - i
     expect(x[0][0]).toBeCloseTo(1, 15);
     expect(x[1][0]).toBeCloseTo(-1, 15);
+  });
+});
+
+describe('solveTransposed (complex) against mathjs lusolve on the transpose and the conjugate transpose', () => {
+  it('solves A^T x = b and A^H x = b', () => {
+    for (let seed = 1; seed <= 60; seed++) {
+      const n = 1 + (seed % 14);
+      const m = randomSparse(n, seed, 0.3, 0.4, false);
+      const d = toDense(m);
+      const lu = new ComplexSparseLU(analyze(m.pattern));
+      lu.factor(m.values);
+      const r = rng(seed);
+      const br = Float64Array.from({ length: n }, () => r() - 0.5);
+      const bi = Float64Array.from({ length: n }, () => r() - 0.5);
+      for (const conj of [false, true]) {
+        // the transpose written out: (A^T)_ij = a_ji, conjugated for A^H
+        const At = d.re.map((row, i) => row.map((_, j) => math.complex(d.re[j][i], conj ? -d.im[j][i] : d.im[j][i])));
+        const ref = math.lusolve(At, Array.from(br, (v, i) => [math.complex(v, bi[i])])) as unknown as math.Complex[][];
+        const xr = br.slice();
+        const xi = bi.slice();
+        lu.solveTransposed(xr, xi, conj);
+        const size = Math.max(...ref.map((c) => Math.hypot(c[0].re, c[0].im)));
+        for (let i = 0; i < n; i++) expect(Math.hypot(xr[i] - ref[i][0].re, xi[i] - ref[i][0].im)).toBeLessThanOrEqual(1e-9 * size);
+      }
+    }
   });
 });
