@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { GRAPH_SCHEMA, type GraphModel, type GraphElement, type Coupling } from '../model/graph';
+import { nameProblem, shownName } from '../model/names';
 import { ModelRefusal } from './errors';
 
 /**
@@ -9,9 +10,23 @@ import { ModelRefusal } from './errors';
  */
 
 const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
-const positive = finite.refine((v) => v > 0, { message: 'must be greater than 0' });
-const nonNegative = finite.refine((v) => v >= 0, { message: 'must be 0 or more' });
-const nodeName = z.string().min(1, { message: 'node names must be non-empty strings' });
+/**
+ * Values the solver computes with: zero, or between 1e-150 and 1e150 in size.
+ * Its pivots compare squared magnitudes, which overflow past about 1e154
+ * (IEEE 754 doubles), so a 5e-324 Ω resistor (a conductance of Infinity)
+ * or a 1e-200 Ω one would otherwise end as a matrix it cannot factor.
+ */
+export const VALUE_RANGE = 1e150;
+const computable = (v: number) => v === 0 || (Math.abs(v) >= 1 / VALUE_RANGE && Math.abs(v) <= VALUE_RANGE);
+const rangeMessage = { message: 'must lie between 1e-150 and 1e150 in size (the solver computes in double precision)' };
+const positive = finite.refine((v) => v > 0, { message: 'must be greater than 0' }).refine(computable, rangeMessage);
+const nonNegative = finite.refine((v) => v >= 0, { message: 'must be 0 or more' }).refine(computable, rangeMessage);
+/** A name (node, element, coupling) under the shared name rule of model/names.ts. */
+const named = (s: string, ctx: z.RefinementCtx) => {
+  const problem = nameProblem(s);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem });
+};
+const nodeName = z.string().min(1, { message: 'node names must be non-empty strings' }).superRefine(named);
 const twoNodes = z.tuple([nodeName, nodeName], { message: 'must list exactly two node names' });
 const fourNodes = z.tuple([nodeName, nodeName, nodeName, nodeName], {
   message: 'must list exactly four node names (primary dotted, primary other, secondary dotted, secondary other)',
@@ -31,7 +46,7 @@ const elementSchemas = {
   'voltage-source': z.object({ id: idField, kind: z.literal('voltage-source'), nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
   'current-source': z.object({ id: idField, kind: z.literal('current-source'), nodes: twoNodes, magnitude: nonNegative, phaseDeg: finite }),
   'ideal-transformer': z.object({ id: idField, kind: z.literal('ideal-transformer'), nodes: fourNodes, ratio: positive }),
-  'inductance-arm': z.object({ id: idField, kind: z.literal('inductance-arm'), nodes: twoNodes, henries: finite }),
+  'inductance-arm': z.object({ id: idField, kind: z.literal('inductance-arm'), nodes: twoNodes, henries: finite.refine(computable, rangeMessage) }),
 } as const;
 
 const KINDS = Object.keys(elementSchemas) as (keyof typeof elementSchemas)[];
@@ -40,7 +55,7 @@ const topSchema = z.object({
   schema: z.literal(GRAPH_SCHEMA, { message: `must be "${GRAPH_SCHEMA}"` }),
   frequencyHz: nonNegative,
   amplitudes: z.enum(['rms', 'peak'], { message: 'must be "rms" or "peak"' }),
-  ground: z.string().min(1, { message: 'must name a node' }),
+  ground: z.string().min(1, { message: 'must name a node' }).superRefine(named),
   elements: z.array(z.unknown(), { message: 'must be an array of elements' }).min(1, { message: 'must hold at least one element' }),
   couplings: z.array(z.unknown(), { message: 'must be an array of couplings' }).optional(),
 });
@@ -54,7 +69,7 @@ const couplingSchema = z.object({
 function describe(v: unknown): string {
   if (v === undefined) return 'nothing';
   if (v === null) return 'null';
-  if (typeof v === 'string') return JSON.stringify(v.length > 40 ? v.slice(0, 40) + '…' : v);
+  if (typeof v === 'string') return shownName(v);
   if (typeof v === 'number' || typeof v === 'boolean') return String(v);
   if (Array.isArray(v)) return 'an array';
   return 'an object';
@@ -119,6 +134,8 @@ export function parseGraphModel(input: unknown): GraphModel {
     if (typeof id !== 'string' || id.length === 0) {
       throw new ModelRefusal(`${label(raw, index)}: "id" must be a non-empty string, got ${describe(r.id)}`, [{ kind: 'element' }]);
     }
+    const idProblem = nameProblem(id);
+    if (idProblem) throw new ModelRefusal(`element #${index + 1}: "id" ${idProblem}, got ${describe(id)}`, [{ kind: 'element' }]);
     const before = seen.get(id);
     if (before !== undefined) {
       throw new ModelRefusal(`element "${id}": duplicate id (elements #${before + 1} and #${index + 1}); give each element its own id`, [{ kind: 'element', id }]);
@@ -158,6 +175,8 @@ export function parseGraphModel(input: unknown): GraphModel {
     if (typeof rid !== 'string' || rid.length === 0) {
       throw new ModelRefusal(`${name}: "id" must be a non-empty string`, [{ kind: 'coupling' }]);
     }
+    const idProblem = nameProblem(rid);
+    if (idProblem) throw new ModelRefusal(`coupling #${index + 1}: "id" ${idProblem}, got ${describe(rid)}`, [{ kind: 'coupling' }]);
     if (byId.has(rid) || couplingIds.has(rid)) {
       throw new ModelRefusal(`coupling "${rid}": duplicate id; give each element and coupling its own id`, [{ kind: 'coupling', id: rid }]);
     }
@@ -169,7 +188,7 @@ export function parseGraphModel(input: unknown): GraphModel {
     }
     for (const w of windings) {
       const el = byId.get(w);
-      if (!el) throw new ModelRefusal(`${name}: winding "${w}" is not an element of this model; name an inductor's id`, [{ kind: 'coupling', id: rid }]);
+      if (!el) throw new ModelRefusal(`${name}: winding ${shownName(w)} is not an element of this model; name an inductor's id`, [{ kind: 'coupling', id: rid }]);
       if (el.kind !== 'inductor') throw new ModelRefusal(`${name}: "${w}" is a ${el.kind}, not an inductor; only inductors can be coupled`, [{ kind: 'coupling', id: rid }, { kind: 'element', id: w }]);
     }
     if (new Set(windings).size !== windings.length) {

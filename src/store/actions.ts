@@ -2,13 +2,23 @@
 import { refProblem } from '../model/designators';
 import * as E from '../model/edits';
 import { GRID, snap, type Point } from '../model/geometry';
+import { sheetBoundsProblem } from '../model/sheetSchema';
 import type { PartKind, Sheet } from '../model/sheet';
 import type { EditorState, EditorStore, View } from './types';
 
-/** Replace the sheet (one undo step) and optionally the selection. */
+/**
+ * Replace the sheet (one undo step) and optionally the selection. An edit
+ * that would leave the sheet's bounds (a file could then not be read back)
+ * is refused with a notice and the sheet stays as it was.
+ */
 export function commit(store: EditorStore, next: Sheet, selection?: string[]): void {
   const s = store.getState();
   if (next === s.sheet && !selection) return;
+  const beyond = next === s.sheet ? null : sheetBoundsProblem(next);
+  if (beyond) {
+    store.setState({ preview: null, notice: { text: `That edit was not made: ${beyond}.`, tone: 'error' } });
+    return;
+  }
   store.setState({ sheet: next, preview: null, ...(selection ? { selection } : {}) });
 }
 

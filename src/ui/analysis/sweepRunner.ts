@@ -91,25 +91,30 @@ export function traceOf(q: SweepQuantity): SweepTrace {
   return { label: labelOf(q), quantity: q, unit: unitOf(q) };
 }
 
-/** "node:n1" ↔ quantity, for selects. */
-export function encodeQ(q: SweepQuantity): string {
+/** A quantity as a select value and back: a JSON array, so any name (with ":" or "|" in it) survives. */
+type Encoded = [string, string] | ['ratio', Encoded, Encoded];
+
+function toArray(q: SweepQuantity): Encoded {
   switch (q.kind) {
-    case 'node': return `node:${q.node}`;
-    case 'zin': return `zin:${q.source}`;
-    case 'ratio': return `ratio:${encodeQ(q.num)}|${encodeQ(q.den)}`;
-    default: return `${q.kind}:${q.element}`;
+    case 'node': return ['node', q.node];
+    case 'zin': return ['zin', q.source];
+    case 'ratio': return ['ratio', toArray(q.num), toArray(q.den)];
+    default: return [q.kind, q.element];
   }
 }
 
+function fromArray(a: Encoded): SweepQuantity {
+  if (a[0] === 'ratio') return { kind: 'ratio', num: fromArray(a[1] as Encoded), den: fromArray(a[2] as Encoded) };
+  const [kind, name] = a as [string, string];
+  if (kind === 'node') return { kind: 'node', node: name };
+  if (kind === 'zin') return { kind: 'zin', source: name };
+  return { kind: kind as 'current' | 'voltage' | 'power', element: name };
+}
+
+export function encodeQ(q: SweepQuantity): string {
+  return JSON.stringify(toArray(q));
+}
+
 export function decodeQ(s: string): SweepQuantity {
-  const i = s.indexOf(':');
-  const kind = s.slice(0, i);
-  const rest = s.slice(i + 1);
-  if (kind === 'node') return { kind: 'node', node: rest };
-  if (kind === 'zin') return { kind: 'zin', source: rest };
-  if (kind === 'ratio') {
-    const [a, b] = rest.split('|');
-    return { kind: 'ratio', num: decodeQ(a), den: decodeQ(b) };
-  }
-  return { kind: kind as 'current' | 'voltage' | 'power', element: rest };
+  return fromArray(JSON.parse(s) as Encoded);
 }
