@@ -12,6 +12,7 @@ import { App } from './ui/App';
 import { worldToScreen } from './store/actions';
 import { pinPositions } from './model/parts/registry';
 import { overlayProbe, sheetProbe } from './store/probe';
+import { sweepTestHold } from './ui/analysis/sweepRunner';
 import './ui/app.css';
 
 const storage = window.localStorage;
@@ -29,7 +30,7 @@ document.addEventListener('visibilitychange', () => document.visibilityState ===
 attachSolver(store, () => new Worker(new URL('./worker/solve.worker.ts', import.meta.url), { type: 'module' }));
 const tools = new ToolController(store);
 
-// read-only hook for tests and the benchmark: the state, where things are on screen, and when the overlay was drawn
+// hook for tests and the benchmark: the state, where things are on screen, when the overlay was drawn; and test-only controls
 (window as unknown as { __coilwright: unknown }).__coilwright = {
   state: () => store.getState(),
   overlay: overlayProbe,
@@ -40,6 +41,10 @@ const tools = new ToolController(store);
     if (!p) return null;
     const w = pinPositions(p)[pin];
     return worldToScreen(store.getState().view, w.x, w.y);
+  },
+  test: {
+    /** while on, sweeps wait after their first chunk until cancelled */
+    holdSweeps: (on: boolean) => void (sweepTestHold.on = on),
   },
 };
 

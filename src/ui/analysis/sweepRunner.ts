@@ -7,6 +7,9 @@ import { analysisClient } from './client';
 
 let running: { cancel: () => void } | null = null;
 
+/** For browser tests: sweeps started while this is set wait after their first chunk until cancelled (they cannot finish before a cancel). */
+export const sweepTestHold = { on: false };
+
 const setSweep = (patch: Partial<ReturnType<typeof analysisStore.getState>['sweep']>) =>
   analysisStore.setState({ sweep: { ...analysisStore.getState().sweep, ...patch } });
 
@@ -37,7 +40,7 @@ export function runSweep(model: GraphModel): void {
   const m = slider ? withSlider(model, slider.target, slider.value) : model;
   const quantities: SweepQuantity[] = settings.traces.map((t) => t.quantity);
   setSweep({ status: 'running', progress: 0, message: '' });
-  const job = analysisClient().sweep(m, { from: settings.from, to: settings.to, points: settings.points, log: settings.log, quantities, chunk: 50 }, (done, total) => {
+  const job = analysisClient().sweep(m, { from: settings.from, to: settings.to, points: settings.points, log: settings.log, quantities, chunk: 50, hold: sweepTestHold.on }, (done, total) => {
     if (running === job) setSweep({ progress: done / total });
   });
   running = job;
