@@ -44,6 +44,8 @@ test('sweep finds the resonance of the 85 kHz pair within 1 % of 1/(2π√(LC))'
 
 test('a long sweep shows progress and can be cancelled', async ({ page }) => {
   await openWireless(page);
+  // the sweep waits after its first chunk until it is cancelled: it cannot finish before the click, however fast the machine
+  await page.evaluate(() => (window as any).__coilwright.test.holdSweeps(true));
   await page.getByRole('button', { name: /^Frequency sweep/ }).click();
   await page.getByTestId('sweep-points').fill('100000');
   await page.getByTestId('sweep-run').click();

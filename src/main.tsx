@@ -1,35 +1,54 @@
-/** Boot: restore the last sheet (or open the demo), wire autosave and the solve worker, show the editor. */
+/** Boot: restore the last sheet (or open the demo), wire autosave, the tab guard and the solve worker, show the editor. */
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { isolationTransformerSheet } from './model/examples/isolation';
 import { newId } from './model/ids';
 import { createEditorStore } from './store/createEditorStore';
 import { attachAutosave } from './store/autosave';
-import { readIndex, restoreCurrent } from './store/library';
+import { readIndex, readRev, restoreCurrent } from './store/library';
+import { attachPrefs } from './store/prefs';
+import { attachTabGuard, noLocks, webLocks } from './store/tabGuard';
 import { ToolController } from './tools/controller';
-import { attachSolver } from './store/solveBridge';
+import { attachSolver, DEFAULT_WATCHDOG, type WorkerLike } from './store/solveBridge';
 import { App } from './ui/App';
 import { worldToScreen } from './store/actions';
 import { pinPositions } from './model/parts/registry';
 import { overlayProbe, sheetProbe } from './store/probe';
+import { sweepTestHold } from './ui/analysis/sweepRunner';
 import './ui/app.css';
 
 const storage = window.localStorage;
 const restored = restoreCurrent(storage);
-const store = createEditorStore(restored?.sheet ?? isolationTransformerSheet(), restored?.id ?? newId('sheet'));
+// a last sheet that cannot be read is kept as it is stored (the editor offers its text for download); the demo opens beside it
+const start = restored && 'sheet' in restored ? restored : null;
+const store = createEditorStore(start?.sheet ?? isolationTransformerSheet(), start?.id ?? newId('sheet'));
+if (start) store.setState({ stored: { id: start.id, sheet: start.sheet, rev: readRev(storage, start.id) } });
+if (restored && 'unreadable' in restored) store.setState({ unreadable: restored.unreadable });
 store.setState({ library: readIndex(storage) });
-// view preferences kept between visits
-const SYMBOLS_KEY = 'coilwright:symbols';
-if (storage.getItem(SYMBOLS_KEY) === 'ieee') store.setState({ symbols: 'ieee' });
-store.subscribe((s, p) => s.symbols !== p.symbols && storage.setItem(SYMBOLS_KEY, s.symbols));
+attachPrefs(store, storage);
+const guard = attachTabGuard(store, storage, navigator.locks ? webLocks(navigator.locks) : noLocks, {
+  watchStorage: (onChange) => {
+    const listen = (e: StorageEvent) => (e.storageArea === storage || e.storageArea === null) && onChange(e.key);
+    window.addEventListener('storage', listen);
+    return () => window.removeEventListener('storage', listen);
+  },
+});
 const autosave = attachAutosave(store, storage);
-if (!restored) autosave.flush();
 window.addEventListener('pagehide', () => autosave.flush());
 document.addEventListener('visibilitychange', () => document.visibilityState === 'hidden' && autosave.flush());
-attachSolver(store, () => new Worker(new URL('./worker/solve.worker.ts', import.meta.url), { type: 'module' }));
+
+// the solve worker, with faults a browser test can put in: a worker stopped without a word, or new workers that never answer
+const faults = { hang: false };
+let solveWorker: WorkerLike | null = null;
+const silentWorker = (): WorkerLike => ({ postMessage: () => {}, onmessage: null, onerror: null, terminate: () => {} });
+const watchdog = { ...DEFAULT_WATCHDOG };
+const solver = attachSolver(store, () => {
+  solveWorker = faults.hang ? silentWorker() : new Worker(new URL('./worker/solve.worker.ts', import.meta.url), { type: 'module' });
+  return solveWorker;
+}, watchdog);
 const tools = new ToolController(store);
 
-// read-only hook for tests and the benchmark: the state, where things are on screen, and when the overlay was drawn
+// hook for tests and the benchmark: the state, where things are on screen, when the overlay was drawn; and test-only faults
 (window as unknown as { __coilwright: unknown }).__coilwright = {
   state: () => store.getState(),
   overlay: overlayProbe,
@@ -41,10 +60,19 @@ const tools = new ToolController(store);
     const w = pinPositions(p)[pin];
     return worldToScreen(store.getState().view, w.x, w.y);
   },
+  test: {
+    /** terminates the solve worker as a crash would, but without an error event */
+    stopSolver: () => solveWorker?.terminate(),
+    /** while on, every new solve worker ignores what it is sent */
+    hangSolvers: (on: boolean) => void (faults.hang = on),
+    watchdog,
+    /** while on, sweeps wait after their first chunk until cancelled */
+    holdSweeps: (on: boolean) => void (sweepTestHold.on = on),
+  },
 };
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
-    <App store={store} tools={tools} storage={storage} />
+    <App store={store} tools={tools} storage={storage} guard={guard} solver={solver} />
   </StrictMode>,
 );

@@ -14,24 +14,46 @@ export function visibleRect(v: View, width: number, height: number): Rect {
   return { x0: -v.x / v.zoom, y0: -v.y / v.zoom, x1: (width - v.x) / v.zoom, y1: (height - v.y) / v.zoom };
 }
 
-export function drawGrid(c: CanvasRenderingContext2D, v: View, width: number, height: number): void {
+/** Grid dots are at least this far apart on screen (px). */
+const GRID_MIN_PX = 9;
+
+/** The most grid columns and rows a view of this size shows, whatever its numbers. */
+export function gridBudget(width: number, height: number): { cols: number; rows: number } {
+  const span = (px: number) => (Number.isFinite(px) && px > 0 ? Math.ceil(Math.min(px, 1e5) / GRID_MIN_PX) + 2 : 0);
+  return { cols: span(width), rows: span(height) };
+}
+
+/**
+ * Draws the dot grid. Every loop counts whole steps up to a limit set by the
+ * view's size in pixels, so no view (far off, zoomed anyhow, even with
+ * numbers beyond float precision) can make it run long. Returns the grid
+ * points visited.
+ */
+export function drawGrid(c: CanvasRenderingContext2D, v: View, width: number, height: number): number {
   c.fillStyle = THEME.paper;
   c.fillRect(0, 0, width, height);
+  if (!(v.zoom > 0) || !Number.isFinite(v.zoom) || !Number.isFinite(v.x) || !Number.isFinite(v.y)) return 0;
   let step = GRID;
-  while (step * v.zoom < 9) step *= 5;
+  for (let k = 0; k < 64 && step * v.zoom < GRID_MIN_PX; k++) step *= 5;
   const r = visibleRect(v, width, height);
+  const budget = gridBudget(width, height);
+  const i0 = Math.floor(r.x0 / step);
+  const j0 = Math.floor(r.y0 / step);
+  const cols = Math.max(0, Math.min(budget.cols, Math.floor(r.x1 / step) - i0 + 1));
+  const rows = Math.max(0, Math.min(budget.rows, Math.floor(r.y1 / step) - j0 + 1));
   const s = Math.max(1, 1.2 * Math.min(1.4, v.zoom));
-  const x0 = Math.floor(r.x0 / step) * step;
-  const y0 = Math.floor(r.y0 / step) * step;
-  for (let x = x0; x <= r.x1; x += step) {
-    const major = Math.round(x / step) % 5 === 0;
+  let visited = 0;
+  for (let i = 0; i < cols; i++) {
+    const major = (i0 + i) % 5 === 0;
     c.fillStyle = major ? THEME.gridMajor : THEME.gridDot;
-    const sx = x * v.zoom + v.x;
-    for (let y = y0; y <= r.y1; y += step) {
-      if (!major && Math.round(y / step) % 5 !== 0 && v.zoom < 0.8) continue;
-      c.fillRect(sx - s / 2, y * v.zoom + v.y - s / 2, s, s);
+    const sx = (i0 + i) * step * v.zoom + v.x;
+    for (let j = 0; j < rows; j++) {
+      visited++;
+      if (!major && (j0 + j) % 5 !== 0 && v.zoom < 0.8) continue;
+      c.fillRect(sx - s / 2, (j0 + j) * step * v.zoom + v.y - s / 2, s, s);
     }
   }
+  return visited;
 }
 
 export interface SheetDrawOptions {

@@ -8,17 +8,33 @@ export const USAGE = `usage:
   coilwright tf FILE.json --input SOURCE --output node:NAME|voltage:ELEMENT|current:ELEMENT
 
 FILE is a graph model (coilwright.graph/1) or a sheet saved by the editor.
-Exit status: 0 solved, 1 the model was refused, 2 the command line is wrong.`;
+HZ is a decimal number (50, 85000, 8.5e4); N a whole number from 1 to 1000000.
+Exit status: 0 solved, 1 the model was refused, 2 the command line is wrong,
+3 the output could not be written.`;
 
 export interface SolveCommand { command: 'solve' | 'svg'; file: string }
 export interface SweepCommand { command: 'sweep'; file: string; from: number; to: number; points: number; log: boolean; probe?: string[] }
 export interface TfCommand { command: 'tf'; file: string; input: string; output: string }
 export type Command = SolveCommand | SweepCommand | TfCommand | { command: 'help' };
 
+/** A decimal number as people write one: digits, a point, an exponent; no hexadecimal, no "Infinity", no spaces. */
+const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const MAX_POINTS = 1_000_000;
+
+const shown = (raw: string) => JSON.stringify(raw.length > 40 ? `${raw.slice(0, 40)}…` : raw);
+
 function number(flag: string, raw: string | undefined): number {
   if (raw === undefined) throw new UsageError(`${flag} needs a value`);
   const v = Number(raw);
-  if (raw.trim() === '' || !Number.isFinite(v)) throw new UsageError(`${flag} must be a number, got "${raw}"`);
+  if (!DECIMAL.test(raw) || !Number.isFinite(v)) throw new UsageError(`${flag} must be a decimal number of hertz (like 50, 85000 or 8.5e4), got ${shown(raw)}`);
+  return v;
+}
+
+function wholeNumber(flag: string, raw: string): number {
+  const v = Number(raw);
+  if (!/^\d+$/.test(raw) || !(v >= 1 && v <= MAX_POINTS)) {
+    throw new UsageError(`${flag} must be a whole number from 1 to ${MAX_POINTS} in decimal digits, got ${shown(raw)}`);
+  }
   return v;
 }
 
@@ -66,10 +82,10 @@ export function parseArgs(argv: string[]): Command {
   for (const need of ['--from', '--to', '--points']) if (!flags.has(need)) throw new UsageError(`sweep needs ${need}`);
   const from = number('--from', flags.get('--from') as string);
   const to = number('--to', flags.get('--to') as string);
-  const points = number('--points', flags.get('--points') as string);
+  const points = wholeNumber('--points', flags.get('--points') as string);
   const log = flags.has('--log');
-  if (!Number.isInteger(points) || points < 1 || points > 1_000_000) throw new UsageError(`--points must be a whole number from 1 to 1000000, got ${flags.get('--points')}`);
   if (from < 0 || to < 0) throw new UsageError('--from and --to must be 0 Hz or more');
+  if (from > to) throw new UsageError(`--from (${from} Hz) is above --to (${to} Hz); a sweep runs from the lower frequency up, so swap them`);
   if (log && (from <= 0 || to <= 0)) throw new UsageError('--log needs --from and --to above 0 Hz');
   let probe: string[] | undefined;
   if (flags.has('--probe')) {

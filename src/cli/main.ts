@@ -1,15 +1,34 @@
 import { readFileSync, statSync } from 'node:fs';
-import { parseArgs, UsageError, USAGE } from './args';
+import { parseArgs, UsageError, USAGE, type SweepCommand } from './args';
 import { loadModelText } from './load';
 import { jsonPieces } from './format';
-import { ModelRefusal, solveGraph, sweepGraph, frequencyGrid, ProbeError, transferFunction, TransferUsageError } from '../solver';
+import { MAX_FILE_BYTES, sweepSizeProblem } from './limits';
+import { ColumnSpool, SpoolError } from './sweepSpool';
+import { sweepJsonPieces } from './sweepJson';
+import { ModelRefusal, solveGraph, sweepStream, frequencyAt, ProbeError, transferFunction, TransferUsageError } from '../solver';
+import type { GraphModel } from '../model/graph';
 
-const MAX_FILE_BYTES = 512 * 1024 * 1024;
+/** Exit status: 0 solved, 1 the model was refused, 2 the command line is wrong, 3 the output could not be written. */
+type Status = 0 | 1 | 2 | 3;
 
-function fail(code: 1 | 2, message: string): never {
-  process.stderr.write(`coilwright: ${message.replace(/\s*\n\s*/g, ' ')}\n`);
+function fail(code: Exclude<Status, 0>, message: string): never {
+  try {
+    process.stderr.write(`coilwright: ${message.replace(/\s*\n\s*/g, ' ')}\n`);
+  } catch {
+    /* standard error is gone too: the status says it */
+  }
   process.exit(code);
 }
+
+/** A closed pipe (a reader such as `head` that has read enough) ends the command quietly; any other write error is one line. */
+function outputFailed(err: NodeJS.ErrnoException): never {
+  if (err.code === 'EPIPE') process.exit(0);
+  const why = err.code === 'ENOSPC' ? 'no space left on the device' : err.code === 'EFBIG' ? 'the file grew too large' : err.message;
+  fail(3, `could not write the output: ${why}${err.code ? ` (${err.code})` : ''}`);
+}
+
+process.stdout.on('error', outputFailed);
+process.stderr.on('error', () => process.exit(process.exitCode ?? 1));
 
 function readFile(path: string): string {
   let size: number;
@@ -21,7 +40,12 @@ function readFile(path: string): string {
     fail(2, `${path}: no such file`);
   }
   if (size > MAX_FILE_BYTES) fail(1, `${path}: file is ${size} bytes, more than the ${MAX_FILE_BYTES}-byte limit`);
-  return readFileSync(path, 'utf8');
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    fail(1, `${path}: could not be read (${code === 'ERR_STRING_TOO_LONG' ? 'too long for this tool' : (e as Error).message})`);
+  }
 }
 
 /** Writes pieces to standard output in chunks of about 1 MB, waiting when the pipe is full. */
@@ -29,11 +53,11 @@ async function writeOut(pieces: Iterable<string>): Promise<void> {
   let buf: string[] = [];
   let size = 0;
   const flush = () =>
-    new Promise<void>((resolve, reject) => {
+    new Promise<void>((resolve) => {
       const chunk = buf.join('');
       buf = [];
       size = 0;
-      process.stdout.write(chunk, (err) => (err ? reject(err) : resolve()));
+      process.stdout.write(chunk, (err) => (err ? outputFailed(err) : resolve()));
     });
   for (const p of pieces) {
     buf.push(p);
@@ -42,6 +66,28 @@ async function writeOut(pieces: Iterable<string>): Promise<void> {
   }
   buf.push('\n');
   await flush();
+}
+
+/** Solves every point first, into a spool (memory stays one block), then writes the JSON from it. */
+async function sweep(model: GraphModel, cmd: SweepCommand): Promise<void> {
+  const stream = sweepStream(model, cmd.probe);
+  const { layout } = stream;
+  const tooBig = sweepSizeProblem(cmd.points, layout.width, model.elements.length);
+  if (tooBig) throw new ModelRefusal(`sweep: ${tooBig}`, [{ kind: 'model' }]);
+  const frequencies = new Float64Array(cmd.points);
+  for (let i = 0; i < cmd.points; i++) frequencies[i] = frequencyAt(cmd.from, cmd.to, cmd.points, cmd.log, i);
+  const spool = new ColumnSpool(layout.width);
+  try {
+    const point = new Float64Array(2 * layout.width);
+    for (let i = 0; i < frequencies.length; i++) {
+      stream.solveInto(frequencies[i], point);
+      spool.push(point);
+    }
+    spool.finish();
+    await writeOut(sweepJsonPieces({ amplitudes: model.amplitudes, frequenciesHz: frequencies, layout, warnings: stream.warnings, spool }));
+  } finally {
+    spool.close();
+  }
 }
 
 async function main(argv: string[]): Promise<void> {
@@ -53,30 +99,29 @@ async function main(argv: string[]): Promise<void> {
     throw e;
   }
   if (cmd.command === 'help') {
-    process.stdout.write(USAGE + '\n');
+    await writeOut([USAGE]);
     return;
   }
   try {
-    let out: unknown;
     if (cmd.command === 'svg') {
       const { renderSheetSvg } = await import('./svg');
-      out = await renderSheetSvg(readFile(cmd.file), cmd.file);
-    } else {
-      // the file's text and parsed JSON are dropped once the model is read
-      const { model } = await loadModelText(readFile(cmd.file), cmd.file);
-      if (cmd.command === 'solve') out = solveGraph(model);
-      else if (cmd.command === 'sweep') out = sweepGraph(model, frequencyGrid(cmd.from, cmd.to, cmd.points, cmd.log), cmd.probe);
-      else if (cmd.command === 'tf') out = transferFunction(model, cmd.input, cmd.output);
+      await writeOut([await renderSheetSvg(readFile(cmd.file), cmd.file)]);
+      return;
     }
-    await writeOut(typeof out === 'string' ? [out] : jsonPieces(out));
+    // the file's text and parsed JSON are dropped once the model is read
+    const { model } = await loadModelText(readFile(cmd.file), cmd.file);
+    if (cmd.command === 'solve') await writeOut(jsonPieces(solveGraph(model)));
+    else if (cmd.command === 'sweep') await sweep(model, cmd);
+    else if (cmd.command === 'tf') await writeOut(jsonPieces(transferFunction(model, cmd.input, cmd.output)));
   } catch (e) {
     if (e instanceof ProbeError || e instanceof TransferUsageError) fail(2, e.message);
     if (e instanceof ModelRefusal) fail(1, e.message);
-    if (e instanceof RangeError && /call stack|Invalid array length|Invalid typed array length/.test(e.message)) {
-      fail(1, `${cmd.file}: the model is too large or too deeply nested to read (${e.message})`);
+    if (e instanceof SpoolError) fail(3, e.message);
+    if (e instanceof RangeError && /call stack|Invalid array length|Invalid typed array length|Invalid string length/.test(e.message)) {
+      fail(1, `${cmd.file}: the model is too large or too deeply nested for this tool (${e.message})`);
     }
-    fail(1, `internal error while solving ${cmd.file}: ${(e as Error)?.message ?? String(e)}; please report it with the file`);
+    fail(1, `${cmd.file}: could not be solved: ${(e as Error)?.message ?? String(e)}`);
   }
 }
 
-main(process.argv.slice(2)).catch((e) => fail(1, `internal error: ${(e as Error)?.message ?? String(e)}`));
+main(process.argv.slice(2)).catch((e) => fail(1, `${(e as Error)?.message ?? String(e)}`));

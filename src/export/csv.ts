@@ -1,19 +1,17 @@
 /**
- * Results and sweeps as CSV (RFC 4180: comma-separated, CRLF line ends,
- * fields with commas, quotes or line breaks quoted). Numbers are written in
- * JavaScript's shortest round-trip form, so a reader gets back exactly the
- * doubles the solver produced. Comment lines start with `#`.
+ * Results and sweeps as CSV (RFC 4180: comma-separated, CRLF line ends).
+ * Numbers are written in JavaScript's shortest round-trip form, so a reader
+ * gets back exactly the doubles the solver produced. Every text field is
+ * quoted and defused against spreadsheet formulas (OWASP, CSV Injection);
+ * comment lines start with `#` and carry any user text (a title, a node
+ * name) in fields of its own, quoted and defused like the rest.
  */
 import type { ComplexJson, GraphModel, SolveResult, SweepResult } from '../model/graph';
+import { csvComment, csvField } from './csvText';
+
+export { csvComment, csvField };
 
 const EOL = '\r\n';
-
-/** One text field: quoted when it needs to be; a leading = + - @ (read as a formula by spreadsheets) is defused with an apostrophe (common practice). */
-export function csvField(text: string): string {
-  let s = text;
-  if (/^[=+\-@\t\r]/.test(s)) s = `'${s}`;
-  return /[",\r\n]/.test(s) || s !== s.trim() ? `"${s.replace(/"/g, '""')}"` : s;
-}
 
 /** A number in its shortest round-trip form; '' for a missing value. */
 export function csvNumber(x: number | null | undefined): string {
@@ -21,8 +19,6 @@ export function csvNumber(x: number | null | undefined): string {
   if (!Number.isFinite(x)) return '';
   return Object.is(x, -0) ? '0' : String(x);
 }
-
-const comment = (text: string) => `# ${text.replace(/[\r\n]+/g, ' ')}`;
 
 const mag = (z: ComplexJson) => Math.hypot(z.re, z.im);
 const deg = (z: ComplexJson) => (z.re === 0 && z.im === 0 ? 0 : (Math.atan2(z.im, z.re) * 180) / Math.PI);
@@ -44,21 +40,24 @@ export const RESULTS_HEADER = [
 export function resultsCsv(model: GraphModel, result: SolveResult, title = ''): string {
   const unit = result.amplitudes === 'rms' ? 'RMS' : 'peak';
   const lines = [
-    comment(`Coilwright results: ${title}`),
-    comment(`${result.frequencyHz} Hz; magnitudes are ${unit} values; angles in degrees; node voltages to ${model.ground}; P and Q absorbed by each part (negative: delivered); linear idealised model`),
-    RESULTS_HEADER.join(','),
+    csvComment('Coilwright results', title),
+    csvComment(`${result.frequencyHz} Hz; magnitudes are ${unit} values; angles in degrees; P and Q absorbed by each part (negative: delivered); linear idealised model`),
+    csvComment('node voltages are to the node', model.ground),
+    RESULTS_HEADER.map(csvField).join(','),
   ];
+  const node = csvField('node');
   for (const [name, v] of Object.entries(result.nodes)) {
-    lines.push([csvField(name), 'node', ...phasor(v), ...phasor(null), '', ''].join(','));
+    lines.push([csvField(name), node, ...phasor(v), ...phasor(null), '', ''].join(','));
   }
   for (const el of model.elements) {
+    if (!Object.hasOwn(result.elements, el.id)) continue;
     const r = result.elements[el.id];
-    if (!r) continue;
+    const kind = csvField(el.kind);
     if ('current' in r) {
-      lines.push([csvField(el.id), el.kind, ...phasor(r.voltage), ...phasor(r.current), csvNumber(r.power.watts), csvNumber(r.power.vars)].join(','));
+      lines.push([csvField(el.id), kind, ...phasor(r.voltage), ...phasor(r.current), csvNumber(r.power.watts), csvNumber(r.power.vars)].join(','));
     } else {
-      lines.push([csvField(`${el.id} primary`), el.kind, ...phasor(r.voltages[0]), ...phasor(r.currents[0]), csvNumber(r.power.watts), csvNumber(r.power.vars)].join(','));
-      lines.push([csvField(`${el.id} secondary`), el.kind, ...phasor(r.voltages[1]), ...phasor(r.currents[1]), '', ''].join(','));
+      lines.push([csvField(`${el.id} primary`), kind, ...phasor(r.voltages[0]), ...phasor(r.currents[0]), csvNumber(r.power.watts), csvNumber(r.power.vars)].join(','));
+      lines.push([csvField(`${el.id} secondary`), kind, ...phasor(r.voltages[1]), ...phasor(r.currents[1]), '', ''].join(','));
     }
   }
   return lines.join(EOL) + EOL;
@@ -104,8 +103,8 @@ export function sweepCsv(table: SweepTable): string {
     for (const part of ['re', 'im', 'mag', 'deg']) head.push(`${t.label} ${part} ${part === 'deg' ? 'deg' : u}`);
   }
   const lines = [
-    comment(`Coilwright sweep: ${table.title ?? ''}`),
-    comment(`magnitudes are ${unit} values; angles in degrees; linear idealised model`),
+    csvComment('Coilwright sweep', table.title ?? ''),
+    csvComment(`magnitudes are ${unit} values; angles in degrees; linear idealised model`),
     head.map(csvField).join(','),
   ];
   for (let i = 0; i < n; i++) {

@@ -23,6 +23,8 @@ export interface SweepSpec {
   quantities: SweepQuantity[];
   /** points solved between two progress reports (and cancel checks) */
   chunk?: number;
+  /** for tests: after the first chunk the sweep waits for a cancel, so it can never finish before one */
+  hold?: boolean;
 }
 
 export interface PortZ { z: ComplexJson | null }

@@ -1,4 +1,5 @@
 /** Designators: R1, L1, C1, V1, I1, T1 and K1 for couplings; unique on a sheet. */
+import { nameProblem } from './names';
 import type { Sheet } from './sheet';
 
 export function usedRefs(sheet: Sheet): Set<string> {
@@ -23,7 +24,8 @@ export function nextRef(prefix: string, used: Set<string>): string {
 export function refProblem(sheet: Sheet, ownerId: string, ref: string): string | null {
   const r = ref.trim();
   if (!r) return 'A designator cannot be empty';
-  if (!/^[A-Za-z][A-Za-z0-9_]*$/.test(r)) return 'Use a letter followed by letters, digits or _ (like R12)';
+  const problem = nameProblem(r);
+  if (problem) return `A designator ${problem}`;
   if (r.toLowerCase() === 'gnd') return '"gnd" is the ground node name';
   const clash = sheet.parts.find((p) => p.id !== ownerId && p.ref.toUpperCase() === r.toUpperCase())
     ?? sheet.couplings.find((c) => c.id !== ownerId && c.ref.toUpperCase() === r.toUpperCase());

@@ -1,7 +1,7 @@
 /**
- * Graph model → sheet, laid out simply: the elements stand in a row, each pin
- * runs a short wire to a node label carrying its node's name (a ground symbol
- * for the ground node), so equal names join the nodes.
+ * Graph model → sheet, laid out simply: the elements stand in rows of
+ * ROW_LENGTH, each pin runs a short wire to a node label carrying its node's
+ * name (a ground symbol for the ground node), so equal names join the nodes.
  */
 import type { GraphElement, GraphModel } from './graph';
 import { newId } from './ids';
@@ -27,13 +27,21 @@ function valueOf(el: GraphElement): Partial<Part> {
   }
 }
 
+/** Elements in one row; rows stack downwards so that a large model stays within the sheet's bounds. */
+export const ROW_LENGTH = 40;
+const ROW_HEIGHT = 260;
+
 export function graphToSheet(model: GraphModel, title = 'Imported graph model'): Sheet {
   const parts: Part[] = [];
   const wires: Sheet['wires'] = [];
   const idOf = new Map<string, string>();
   let x = 100;
-  const y = 220;
-  for (const el of model.elements) {
+  let y = 220;
+  model.elements.forEach((el, index) => {
+    if (index > 0 && index % ROW_LENGTH === 0) {
+      x = 100;
+      y += ROW_HEIGHT;
+    }
     const kind = KIND[el.kind];
     const def = PART_DEFS[kind];
     const wide = kind === 'transformer';
@@ -53,7 +61,7 @@ export function graphToSheet(model: GraphModel, title = 'Imported graph model'):
       }
     });
     x += wide ? 190 : 150;
-  }
+  });
   const couplings = (model.couplings ?? []).map((c) => ({
     id: newId('coupling'),
     ref: c.id,

@@ -1,44 +1,78 @@
 /** zod validators for the current sheet version (the lenient part fills defaults). */
 import { z } from 'zod';
+import { nameProblem, titleProblem } from './names';
 import { PART_KINDS, SHEET_SCHEMA, type Sheet } from './sheet';
 
+/**
+ * Bounds on what a sheet may hold. They refuse only what the editor never
+ * makes: coordinates far beyond any drawing (the view and the wire topology
+ * work on them exactly only within these), names and titles under the
+ * shared rule of names.ts, and counts that keep every frame a bounded amount
+ * of work.
+ */
+export const SHEET_LIMITS = {
+  /** |x| and |y| of parts and wire points, in sheet units (a grid step is 10) */
+  coordinate: 1_000_000,
+  parts: 20_000,
+  wires: 40_000,
+  couplings: 10_000,
+  /** corners of one wire, its two ends included */
+  wirePoints: 1_000,
+  windingsPerCoupling: 64,
+} as const;
+
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
+const L = SHEET_LIMITS;
+const coordinate = finite.refine((v) => Math.abs(v) <= L.coordinate, `must lie between -${L.coordinate} and ${L.coordinate} (sheet coordinates are bounded)`);
+
+const check = (problem: (s: string) => string | null) => (s: string, ctx: z.RefinementCtx) => {
+  const p = problem(s);
+  if (p) ctx.addIssue({ code: 'custom', message: p });
+};
+const name = z.string().superRefine(check(nameProblem));
+/** a designator: a name, or empty for parts that have none (ground, node labels) */
+const designator = z.string().superRefine(check((s) => (s === '' ? null : nameProblem(s))));
+const id = name;
+const tooMany = (what: string, max: number) => `holds more than ${max} ${what}; a sheet has at most ${max}`;
 
 export const partSchema = z.object({
-  id: z.string().min(1),
+  id,
   kind: z.enum(PART_KINDS as [string, ...string[]]),
-  x: finite,
-  y: finite,
+  x: coordinate,
+  y: coordinate,
   rot: z.union([z.literal(0), z.literal(1), z.literal(2), z.literal(3)]).default(0),
   mirror: z.boolean().default(false),
-  ref: z.string().default(''),
+  ref: designator.default(''),
   value: finite.optional(),
   phaseDeg: finite.optional(),
   dot: z.enum(['first', 'second']).optional(),
-  name: z.string().optional(),
+  name: name.optional(),
 });
 
 export const wireSchema = z.object({
-  id: z.string().min(1),
-  pts: z.array(finite).min(4).refine((a) => a.length % 2 === 0, 'needs pairs of coordinates'),
+  id,
+  pts: z.array(coordinate)
+    .min(4, 'needs at least two points')
+    .max(2 * L.wirePoints, `has more than ${L.wirePoints} points; a wire has at most ${L.wirePoints}`)
+    .refine((a) => a.length % 2 === 0, 'needs pairs of coordinates'),
 });
 
 export const couplingSchema = z.object({
-  id: z.string().min(1),
-  ref: z.string().default(''),
-  windings: z.array(z.string()).min(2),
+  id,
+  ref: designator.default(''),
+  windings: z.array(id).min(2).max(L.windingsPerCoupling, `names more than ${L.windingsPerCoupling} windings; a link couples at most ${L.windingsPerCoupling}`),
   by: z.enum(['k', 'M']).default('k'),
   value: finite,
 });
 
 export const sheetSchema = z.object({
   schema: z.literal(SHEET_SCHEMA),
-  title: z.string().default('Untitled sheet'),
+  title: z.string().superRefine(check(titleProblem)).default('Untitled sheet'),
   frequencyHz: finite.refine((f) => f >= 0, 'must be 0 or more'),
   amplitudes: z.enum(['rms', 'peak']).default('rms'),
-  parts: z.array(partSchema).default([]),
-  wires: z.array(wireSchema).default([]),
-  couplings: z.array(couplingSchema).default([]),
+  parts: z.array(partSchema).max(L.parts, tooMany('parts', L.parts)).default([]),
+  wires: z.array(wireSchema).max(L.wires, tooMany('wires', L.wires)).default([]),
+  couplings: z.array(couplingSchema).max(L.couplings, tooMany('links', L.couplings)).default([]),
 });
 
 /** Validate a current-version object; returns the sheet or a one-line reason. */
@@ -62,4 +96,22 @@ export function validateSheet(obj: unknown): { ok: true; sheet: Sheet } | { ok: 
     }
   }
   return { ok: true, sheet };
+}
+
+/**
+ * The bounds an edit must keep (coordinates and counts of SHEET_LIMITS), checked
+ * without the full schema so that every edit can afford it; null when kept.
+ */
+export function sheetBoundsProblem(sheet: Sheet): string | null {
+  const L = SHEET_LIMITS;
+  if (sheet.parts.length > L.parts) return `a sheet holds at most ${L.parts} parts`;
+  if (sheet.wires.length > L.wires) return `a sheet holds at most ${L.wires} wires`;
+  if (sheet.couplings.length > L.couplings) return `a sheet holds at most ${L.couplings} links`;
+  const far = `parts and wires must stay within ${L.coordinate} units of the sheet's origin`;
+  for (const p of sheet.parts) if (!(Math.abs(p.x) <= L.coordinate && Math.abs(p.y) <= L.coordinate)) return far;
+  for (const w of sheet.wires) {
+    if (w.pts.length > 2 * L.wirePoints) return `a wire has at most ${L.wirePoints} points`;
+    for (const v of w.pts) if (!(Math.abs(v) <= L.coordinate)) return far;
+  }
+  return null;
 }

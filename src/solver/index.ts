@@ -1,7 +1,7 @@
 export { parseGraphModel } from './validate';
 export { ModelRefusal } from './errors';
 export { SolverSession, createSession, solveGraph, type RawSolution } from './phasor/session';
-export { sweepGraph, frequencyGrid, ProbeError } from './phasor/sweep';
+export { sweepGraph, sweepStream, frequencyGrid, frequencyAt, ProbeError, type SweepLayout, type SweepStream } from './phasor/sweep';
 export * from './analysis';
 export { pairState, connectionOf, mutualOf, type PairState, type Connection } from './coupling-state';
 export { compareDotFlip, diffResults, flipDot, type Change, type DotComparison } from './compare';

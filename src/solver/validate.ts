@@ -1,8 +1,10 @@
 import { z } from 'zod';
 import { GRAPH_SCHEMA, type GraphModel, type GraphElement, type Coupling } from '../model/graph';
+import { nameProblem, shownName } from '../model/names';
 import { ModelRefusal } from './errors';
 import { ELEMENT_DEFS, ELEMENT_KINDS, isElementKind } from './elements/registry';
-import { finite, nonNegative } from './elements/schema';
+import { finite, nameRule, nonNegative } from './elements/schema';
+export { VALUE_RANGE } from './elements/schema';
 
 /**
  * Reads an untrusted value as a `coilwright.graph/1` graph model. Structure is
@@ -15,7 +17,7 @@ const topSchema = z.object({
   schema: z.literal(GRAPH_SCHEMA, { message: `must be "${GRAPH_SCHEMA}"` }),
   frequencyHz: nonNegative,
   amplitudes: z.enum(['rms', 'peak'], { message: 'must be "rms" or "peak"' }),
-  ground: z.string().min(1, { message: 'must name a node' }),
+  ground: z.string().min(1, { message: 'must name a node' }).superRefine(nameRule),
   elements: z.array(z.unknown(), { message: 'must be an array of elements' }).min(1, { message: 'must hold at least one element' }),
   couplings: z.array(z.unknown(), { message: 'must be an array of couplings' }).optional(),
 });
@@ -29,7 +31,7 @@ const couplingSchema = z.object({
 function describe(v: unknown): string {
   if (v === undefined) return 'nothing';
   if (v === null) return 'null';
-  if (typeof v === 'string') return JSON.stringify(v.length > 40 ? v.slice(0, 40) + '…' : v);
+  if (typeof v === 'string') return shownName(v);
   if (typeof v === 'number' || typeof v === 'boolean') return String(v);
   if (Array.isArray(v)) return 'an array';
   return 'an object';
@@ -94,6 +96,8 @@ export function parseGraphModel(input: unknown): GraphModel {
     if (typeof id !== 'string' || id.length === 0) {
       throw new ModelRefusal(`${label(raw, index)}: "id" must be a non-empty string, got ${describe(r.id)}`, [{ kind: 'element' }]);
     }
+    const idProblem = nameProblem(id);
+    if (idProblem) throw new ModelRefusal(`element #${index + 1}: "id" ${idProblem}, got ${describe(id)}`, [{ kind: 'element' }]);
     const before = seen.get(id);
     if (before !== undefined) {
       throw new ModelRefusal(`element "${id}": duplicate id (elements #${before + 1} and #${index + 1}); give each element its own id`, [{ kind: 'element', id }]);
@@ -133,6 +137,8 @@ export function parseGraphModel(input: unknown): GraphModel {
     if (typeof rid !== 'string' || rid.length === 0) {
       throw new ModelRefusal(`${name}: "id" must be a non-empty string`, [{ kind: 'coupling' }]);
     }
+    const idProblem = nameProblem(rid);
+    if (idProblem) throw new ModelRefusal(`coupling #${index + 1}: "id" ${idProblem}, got ${describe(rid)}`, [{ kind: 'coupling' }]);
     if (byId.has(rid) || couplingIds.has(rid)) {
       throw new ModelRefusal(`coupling "${rid}": duplicate id; give each element and coupling its own id`, [{ kind: 'coupling', id: rid }]);
     }
@@ -144,7 +150,7 @@ export function parseGraphModel(input: unknown): GraphModel {
     }
     for (const w of windings) {
       const el = byId.get(w);
-      if (!el) throw new ModelRefusal(`${name}: winding "${w}" is not an element of this model; name an inductor's id`, [{ kind: 'coupling', id: rid }]);
+      if (!el) throw new ModelRefusal(`${name}: winding ${shownName(w)} is not an element of this model; name an inductor's id`, [{ kind: 'coupling', id: rid }]);
       if (!ELEMENT_DEFS[el.kind].roles.winding) throw new ModelRefusal(`${name}: "${w}" is a ${el.kind}, not an inductor; only inductors can be coupled`, [{ kind: 'coupling', id: rid }, { kind: 'element', id: w }]);
     }
     if (new Set(windings).size !== windings.length) {

@@ -2,18 +2,36 @@
 import { refProblem } from '../model/designators';
 import * as E from '../model/edits';
 import { GRID, snap, type Point } from '../model/geometry';
+import { sheetBoundsProblem } from '../model/sheetSchema';
 import type { PartKind, Sheet } from '../model/sheet';
 import type { EditorState, EditorStore, View } from './types';
 
-/** Replace the sheet (one undo step) and optionally the selection. */
+/**
+ * Replace the sheet (one undo step) and optionally the selection. An edit
+ * that would leave the sheet's bounds (a file could then not be read back)
+ * is refused with a notice and the sheet stays as it was.
+ */
 export function commit(store: EditorStore, next: Sheet, selection?: string[]): void {
   const s = store.getState();
   if (next === s.sheet && !selection) return;
+  if (next !== s.sheet && refuseReadOnly(store)) return;
+  const beyond = next === s.sheet ? null : sheetBoundsProblem(next);
+  if (beyond) {
+    store.setState({ preview: null, notice: { text: `That edit was not made: ${beyond}.`, tone: 'error' } });
+    return;
+  }
   store.setState({ sheet: next, preview: null, ...(selection ? { selection } : {}) });
 }
 
 export function notify(store: EditorStore, text: string, tone: 'info' | 'error' = 'info'): void {
   store.setState({ notice: { text, tone } });
+}
+
+/** A sheet shown read-only (another tab edits it) takes no edits: says so and returns true. */
+function refuseReadOnly(store: EditorStore): boolean {
+  if (store.getState().tab.state !== 'read-only') return false;
+  store.setState({ preview: null, notice: { text: 'This sheet is read-only in this tab (another tab edits it). Take it over or keep a copy to edit it here.', tone: 'error' } });
+  return true;
 }
 
 export function selectedSet(s: EditorState): Set<string> {
@@ -126,11 +144,13 @@ export function selectAll(store: EditorStore): void {
 }
 
 export function undo(store: EditorStore): void {
+  if (refuseReadOnly(store)) return;
   store.temporal.getState().undo();
   store.setState({ preview: null });
 }
 
 export function redo(store: EditorStore): void {
+  if (refuseReadOnly(store)) return;
   store.temporal.getState().redo();
   store.setState({ preview: null });
 }

@@ -1,45 +1,36 @@
-/** Autosave: after every edit of the sheet, write it to storage (soon, and at once when the page goes away). */
+/**
+ * Autosave: after every edit of the sheet, write it to storage (soon, and at
+ * once when the page goes away). Nothing is written while the sheet is a
+ * visit from a link, while the tab waits to learn whether another tab has the
+ * sheet open, or while it shows the sheet read-only; a sheet just read from
+ * storage is not written back.
+ */
 import type { KeyValueStorage } from './library';
-import { writeSheet } from './library';
-import type { EditorStore } from './types';
+import { saveSheet, unsaved } from './save';
+import type { EditorState, EditorStore } from './types';
 
 export interface Autosave {
   flush(): void;
   stop(): void;
 }
 
+const due = (s: EditorState) => !s.visit && s.tab.state === 'own' && unsaved(s.sheetId, s.sheet, s.stored);
+
 export function attachAutosave(store: EditorStore, storage: KeyValueStorage, delayMs = 40): Autosave {
   let timer: ReturnType<typeof setTimeout> | null = null;
-  let pending = false;
   const flush = () => {
     if (timer) clearTimeout(timer);
     timer = null;
-    if (!pending) return;
-    const s = store.getState();
-    // a sheet opened from a link is not written until it is kept
-    if (s.visit) return;
-    pending = false;
-    try {
-      const library = writeSheet(storage, s.sheetId, s.sheet);
-      store.setState({ library });
-    } catch (e) {
-      store.setState({ notice: { text: `Could not save in the browser: ${e instanceof Error ? e.message : String(e)}`, tone: 'error' } });
-    }
+    if (due(store.getState())) saveSheet(store, storage);
   };
   const unsubscribe = store.subscribe((s, prev) => {
-    if (s.visit) {
+    if (s.visit && !prev.visit) {
       // a visit begins: an edit of the sheet before it that is still waiting is written now
-      if (!prev.visit && pending) {
-        pending = false;
-        try { store.setState({ library: writeSheet(storage, prev.sheetId, prev.sheet) }); } catch { /* reported on the next write */ }
-      }
+      if (prev.tab.state === 'own' && unsaved(prev.sheetId, prev.sheet, prev.stored)) saveSheet(store, storage, prev.sheetId, prev.sheet);
       return;
     }
-    if (prev.visit) {
-      // dismissed: the sheet from before is back as it was stored; kept: written now
-      if (s.sheetId === prev.visit.previousId && s.sheet === prev.visit.previousSheet && !pending) return;
-    } else if (s.sheet === prev.sheet && s.sheetId === prev.sheetId) return;
-    pending = true;
+    const moved = s.sheet !== prev.sheet || s.sheetId !== prev.sheetId || s.tab !== prev.tab || s.visit !== prev.visit || s.stored !== prev.stored;
+    if (!moved || !due(s)) return;
     if (delayMs <= 0) return flush();
     if (!timer) timer = setTimeout(flush, delayMs);
   });

@@ -7,7 +7,7 @@ import type { EditorState, EditorStore, TrackedState } from './types';
 
 export const HISTORY_LIMIT = 300;
 
-export function initialViewSlice(): Omit<EditorState, 'sheet' | 'sheetId' | 'library' | 'solve' | 'derived'> {
+export function initialViewSlice(): Omit<EditorState, 'sheet' | 'sheetId' | 'library' | 'solve' | 'derived' | 'tab' | 'stored' | 'unreadable'> {
   return {
     view: { x: 40, y: 20, zoom: 1.5 },
     selection: [],
@@ -34,6 +34,9 @@ export function createEditorStore(sheet: Sheet = emptySheet(), sheetId: string =
         solve: { status: 'idle', result: null, circuit: null, refusal: null, stale: false, seq: 0, solveMs: 0 },
         derived: null,
         library: [],
+        tab: { state: 'own' },
+        stored: null,
+        unreadable: null,
       }),
       {
         partialize: (s): TrackedState => ({ sheet: s.sheet }),

@@ -6,6 +6,7 @@ import type { Rect, QuarterTurns } from '../model/geometry';
 import type { RefusalCulprit, SolveResult } from '../model/graph';
 import type { PartKind, Sheet } from '../model/sheet';
 import type { DerivedCircuit } from '../model/toGraph';
+import type { UnreadableSheet } from './library';
 
 export interface DocSlice {
   sheet: Sheet;
@@ -54,6 +55,10 @@ export interface SolveSlice {
     /** sequence number of the edit the shown result belongs to */
     seq: number;
     solveMs: number;
+    /** solve workers replaced in a row because one stopped answering (0 once one answers) */
+    restarts?: number;
+    /** the solver kept failing: it is no longer restarted on its own until the next edit or a retry */
+    stuck?: boolean;
   };
   /** the circuit derived from the current sheet (may be newer than the result) */
   derived: DerivedCircuit | null;
@@ -77,7 +82,22 @@ export interface ShareSlice {
   visit?: Visit | null;
 }
 
-export type EditorState = DocSlice & ViewSlice & SolveSlice & LibrarySlice & ShareSlice;
+export interface StoredCopy { id: string; sheet: Sheet; rev: string | null }
+
+/** Why a tab shows its sheet without saving it: open in another tab first, taken over by another tab, or changed by another tab meanwhile. */
+export type ReadOnlyReason = 'elsewhere' | 'taken' | 'changed';
+
+/** What keeps work from being lost: the tab's hold on its sheet, and a stored sheet that could not be read. */
+export interface GuardSlice {
+  /** 'own': edits are made and saved; 'checking': edits are made, saving waits for the answer; 'read-only': edits are refused and nothing is saved */
+  tab: { state: 'checking' | 'own' } | { state: 'read-only'; why: ReadOnlyReason };
+  /** the copy in browser storage this tab knows of: the sheet it last wrote or read there, under which id, at which revision */
+  stored: StoredCopy | null;
+  /** a stored sheet that could not be read; its text is kept for download */
+  unreadable: UnreadableSheet | null;
+}
+
+export type EditorState = DocSlice & ViewSlice & SolveSlice & LibrarySlice & ShareSlice & GuardSlice;
 
 export type TrackedState = Pick<EditorState, 'sheet'>;
 

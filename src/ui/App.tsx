@@ -7,6 +7,8 @@ import { formatSI } from '../model/quantity';
 import { fitView, notify } from '../store/actions';
 import { loadSheet, switchSheet, deleteStoredSheet } from '../store/sheets';
 import type { KeyValueStorage } from '../store/library';
+import type { SolveBridge } from '../store/solveBridge';
+import type { TabGuard } from '../store/tabGuard';
 import { findCommand, type CommandHost } from '../tools/commands';
 import type { ToolController } from '../tools/controller';
 import type { EditorStore } from '../store/types';
@@ -24,6 +26,7 @@ import { CouplingInspector } from './analysis/CouplingInspector';
 import { fileProblem } from './share/importGuard';
 import { runOutput } from './share/outputs';
 import { ShareLayer } from './share/ShareLayer';
+import { GuardLayer } from './guard/GuardLayer';
 import { preloadExpr } from './valueEntry';
 
 function isTyping(t: EventTarget | null): boolean {
@@ -31,7 +34,7 @@ function isTyping(t: EventTarget | null): boolean {
   return !!el && (el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable);
 }
 
-export function App({ store, tools, storage }: { store: EditorStore; tools: ToolController; storage: KeyValueStorage }) {
+export function App({ store, tools, storage, guard, solver }: { store: EditorStore; tools: ToolController; storage: KeyValueStorage; guard?: TabGuard; solver?: SolveBridge }) {
   const fileInput = useRef<HTMLInputElement>(null);
   const canvasBox = useRef<HTMLDivElement>(null);
   const host: CommandHost = useMemo(() => ({
@@ -134,6 +137,7 @@ export function App({ store, tools, storage }: { store: EditorStore; tools: Tool
               <ConventionBadge />
               <FirstSteps />
             </div>
+            <GuardLayer guard={guard} solver={solver} />
             <Notices />
             <AnalysisTabs />
             <AnalysisDock />

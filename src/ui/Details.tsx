@@ -1,4 +1,5 @@
 /** The details panel: edits the selected part or coupling, or the sheet when nothing is selected. */
+import { nameProblem, titleProblem } from '../model/names';
 import { formatEditable } from '../model/quantity';
 import { PART_DEFS } from '../model/parts/registry';
 import * as E from '../model/edits';
@@ -33,7 +34,14 @@ function SheetDetails() {
   return (
     <div className="form" data-testid="sheet-details">
       <p className="muted">The sheet (select a part to edit it).</p>
-      <Field label="Title" value={sheet.title} testId="sheet-title" apply={(t) => (t.trim() ? (set({ title: t.trim() }), null) : 'A title cannot be empty')} />
+      <Field label="Title" value={sheet.title} testId="sheet-title" apply={(t) => {
+        const title = t.trim();
+        if (!title) return 'A title cannot be empty';
+        const problem = titleProblem(title);
+        if (problem) return `The title ${problem}`;
+        set({ title });
+        return null;
+      }} />
       <Field
         label="Frequency" unit="Hz" value={formatEditable(sheet.frequencyHz, 'Hz')} testId="sheet-frequency"
         hint="e.g. 50, 85k, 1/(2*pi*1e-3)"
@@ -80,7 +88,12 @@ function PartDetails({ part }: { part: Part }) {
       {def.prefix && <Field label="Designator" value={part.ref} testId="field-ref" apply={(t) => renamePart(store, part.id, t)} />}
       {part.kind === 'label' && (
         <Field label="Node name" value={part.name ?? ''} testId="field-name" hint="Labels with the same name are one node"
-          apply={(t) => (/^[A-Za-z_][A-Za-z0-9_]*$/.test(t.trim()) ? (patch({ name: t.trim() }), null) : 'Use a letter followed by letters, digits or _')} />
+          apply={(t) => {
+            const problem = nameProblem(t.trim());
+            if (problem) return `A node name ${problem}`;
+            patch({ name: t.trim() });
+            return null;
+          }} />
       )}
       {def.fields.map((f) => (
         <Field

@@ -1,6 +1,7 @@
 /** Sheet files: save as our JSON, open a sheet or a graph-model file; anything else is refused with a reason. */
 import { graphToSheet } from '../model/fromGraph';
 import { isGraphJson, parseSheetJson } from '../model/parseSheet';
+import { validateSheet } from '../model/sheetSchema';
 import type { Sheet } from '../model/sheet';
 
 export function sheetFileName(sheet: Sheet): string {
@@ -39,7 +40,11 @@ export async function readSheetFile(parse: { text: string; name: string }): Prom
   if (isGraphJson(json)) {
     const { parseGraphModel } = await import('../solver');
     const model = parseGraphModel(json);
-    return graphToSheet(model, parse.name.replace(/\.json$/i, ''));
+    // the title comes from the file's name, less what a title may not hold
+    const title = parse.name.replace(/\.json$/i, '').replace(/[\p{Cc}\p{Cf}\p{Zl}\p{Zp}\uD800-\uDFFF]/gu, '').slice(0, 120);
+    const laidOut = validateSheet(graphToSheet(model, title || 'Imported graph model'));
+    if (!laidOut.ok) throw new Error(`${parse.name} is a graph model that cannot be drawn as a sheet: ${laidOut.reason}`);
+    return laidOut.sheet;
   }
   return parseSheetJson(json);
 }

@@ -1,4 +1,5 @@
 /** The readings table as plain rows (for the panel and for CSV), from a solve result. */
+import { csvComment, csvField } from '../export/csvText';
 import type { ComplexJson, SolveResult } from '../model/graph';
 import { angleDeg, mag } from '../model/phasor';
 
@@ -77,10 +78,10 @@ const num = (v: number | null) => (v === null ? '' : Number(v.toPrecision(9)).to
 export function readingsCsv(result: SolveResult, rows: ReadingRow[], title: string): string {
   const unit = result.amplitudes === 'rms' ? 'RMS' : 'peak';
   const lines = [
-    `# ${title.replace(/[\r\n]/g, ' ')}`,
-    `# frequency ${result.frequencyHz} Hz, amplitudes ${unit}, angles in degrees, linear idealised model (no saturation, inrush or heating)`,
-    `name,kind,voltage_${unit}_V,voltage_deg,current_${unit}_A,current_deg,P_W,Q_var`,
+    csvComment('Coilwright readings', title),
+    csvComment(`frequency ${result.frequencyHz} Hz; amplitudes ${unit}; angles in degrees; linear idealised model (no saturation, inrush or heating)`),
+    ['name', 'kind', `voltage_${unit}_V`, 'voltage_deg', `current_${unit}_A`, 'current_deg', 'P_W', 'Q_var'].map(csvField).join(','),
   ];
-  for (const r of rows) lines.push([`"${r.name.replace(/"/g, '""')}"`, r.what, num(r.vMag), num(r.vDeg), num(r.iMag), num(r.iDeg), num(r.watts), num(r.vars)].join(','));
+  for (const r of rows) lines.push([csvField(r.name), csvField(r.what), num(r.vMag), num(r.vDeg), num(r.iMag), num(r.iDeg), num(r.watts), num(r.vars)].join(','));
   return lines.join('\n') + '\n';
 }

@@ -10,6 +10,8 @@ import { chunkRanges, compare, inspect, power, prepareSweep, tCheck } from './an
 declare const self: DedicatedWorkerGlobalScope;
 
 const cancelled = new Set<number>();
+/** sweeps held (spec.hold) until their cancel arrives */
+const held = new Map<number, () => void>();
 const post = (r: AnalysisReply) => self.postMessage(r);
 const pause = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
@@ -21,6 +23,10 @@ async function sweep(req: Extract<AnalysisRequest, { kind: 'sweep' }>) {
   for (const [a, b] of chunkRanges(total, req.spec.chunk ?? 100)) {
     prepared.run(a, b);
     post({ id: req.id, type: 'progress', done: b, total });
+    if (req.spec.hold) {
+      if (!cancelled.has(req.id)) await new Promise<void>((resolve) => held.set(req.id, resolve));
+      if (cancelled.delete(req.id)) return post({ id: req.id, type: 'cancelled' });
+    }
     // let a cancel message in every 25 ms or so (a pause per chunk would cost the timer's clamp each time)
     if (performance.now() - lastPause > 25) {
       await pause();
@@ -36,7 +42,11 @@ self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {
   const req = ev.data;
   try {
     switch (req.kind) {
-      case 'cancel': cancelled.add(req.target); return;
+      case 'cancel':
+        cancelled.add(req.target);
+        held.get(req.target)?.();
+        held.delete(req.target);
+        return;
       case 'inspect': return post({ id: req.id, type: 'done', value: inspect(req.model, req.result, req.coupling, req.pair) });
       case 'compare': return post({ id: req.id, type: 'done', value: compare(req.model, req.winding, req.coupling) });
       case 'tcheck': return post({ id: req.id, type: 'done', value: tCheck(req.model, req.coupling) });

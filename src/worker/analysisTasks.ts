@@ -4,6 +4,7 @@
  * solve worker does.
  */
 import type { ComplexJson, GraphModel, InductorEl, SolveResult, TwoTerminalResult } from '../model/graph';
+import { withNameTables } from '../model/names';
 import { portAgreement } from '../model/resultCompare';
 import type { CompareAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer } from '../model/analysisMessages';
 import {
@@ -28,8 +29,9 @@ function couplingPair(model: GraphModel, coupling: string, pair?: [string, strin
 }
 
 /** Coupling state at the solved currents, the reflected impedances and what each source sees. */
-export function inspect(raw: GraphModel, result: SolveResult, coupling: string, pair?: [string, string]): InspectAnswer {
+export function inspect(raw: GraphModel, received: SolveResult, coupling: string, pair?: [string, string]): InspectAnswer {
   const model = parseGraphModel(raw);
+  const result = withNameTables(received);
   const [a, b] = couplingPair(model, coupling, pair);
   const st = pairState(model, result, coupling, [a, b]);
   const refl = (w: string, partner: string): C => reflectedImpedances(model, w).find((r) => r.partner === partner)?.reflected ?? ZERO;
@@ -132,8 +134,9 @@ export function tCheck(raw: GraphModel, coupling: string): TAnswer {
   };
 }
 
-export function power(raw: GraphModel, result: SolveResult): PowerAnswer {
+export function power(raw: GraphModel, received: SolveResult): PowerAnswer {
   const model = parseGraphModel(raw);
+  const result = withNameTables(received);
   const s = powerSummary(model, result);
   return {
     rows: s.rows, delivered: s.delivered, dissipated: s.dissipated,

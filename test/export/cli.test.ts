@@ -1,10 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { build } from 'esbuild';
+import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { bundleCli, root } from '../cli/bundle';
 import { svgToSheet, xmlProblem } from '../../src/export';
 import { parseSheetText } from '../../src/model';
 import { tableRows } from './svgText';
@@ -16,11 +14,9 @@ import { tableRows } from './svgText';
  * (graph-model contract, "Refusals").
  */
 
-const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
-const dir = mkdtempSync(join(tmpdir(), 'coilwright-svg-cli-'));
-// a bundle of its own, so that this file never races another test rebuilding dist-cli
-const cli = join(dir, 'coilwright.mjs');
 const sheets = join(root, 'examples', 'sheets');
+let dir = '';
+let cli = '';
 
 function run(args: string[], env: Record<string, string> = {}) {
   const r = spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8', env: { ...process.env, ...env } });
@@ -35,7 +31,7 @@ function fileWith(content: string): string {
 }
 
 beforeAll(async () => {
-  await build({ entryPoints: [join(root, 'src/cli/main.ts')], outfile: cli, bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'error' });
+  ({ dir, cli } = await bundleCli('coilwright-svg-cli-'));
 });
 
 describe('coilwright svg', () => {

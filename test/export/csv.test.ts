@@ -39,7 +39,7 @@ describe('results CSV', () => {
       const model = sheetToGraph(sheet);
       const result = solveGraph(model);
       const text = resultsCsv(model, result, sheet.title);
-      expect(text.split('\r\n')[0]).toBe(`# Coilwright results: ${sheet.title}`);
+      expect(text.split('\r\n')[0]).toBe(`# Coilwright results,"${sheet.title}"`);
       const rows = parseCsv(text).slice(1);
       const byName = new Map(rows.map((r) => [r[0], r]));
       // shortest round-trip decimal form: Number(String(x)) === x for every double (ECMA-262 Number::toString)
@@ -61,18 +61,36 @@ describe('results CSV', () => {
     });
   }
 
-  it('names and titles are quoted, and text a spreadsheet would run as a formula is defused', () => {
-    // RFC 4180 §2: fields with commas, quotes or line breaks are quoted and quotes doubled; a leading "=" is defused (OWASP, common practice)
+  it('every text field is quoted, and text a spreadsheet would run as a formula is defused', () => {
+    // RFC 4180 §2: quoted fields, quotes doubled; a cell beginning with = + - @ tab or CR is prefixed with an apostrophe (OWASP, CSV Injection)
     expect(csvField('a,b')).toBe('"a,b"');
     expect(csvField('say "hi"')).toBe('"say ""hi"""');
-    expect(csvField('=SUM(A1)')).toBe("'=SUM(A1)");
-    expect(csvField('plain')).toBe('plain');
+    expect(csvField('plain')).toBe('"plain"');
+    for (const start of ['=', '+', '-', '@', '\t', '\r', '\uFF1D']) expect(csvField(`${start}1+1`)).toBe(`"'${start}1+1"`);
+    expect(csvField('=HYPERLINK("http://x","y")')).toBe(`"'=HYPERLINK(""http://x"",""y"")"`);
     expect(parseCsv(`${csvField('x,"y"\r\nz')},2\r\n`)).toEqual([['x,"y"\r\nz', '2']]); // identity through the reader
     const sheet = divider();
     sheet.title = 'a\r\nb <script>';
     const model = sheetToGraph(sheet);
     const text = resultsCsv(model, solveGraph(model), sheet.title);
-    expect(text.split('\r\n')[0]).toBe('# Coilwright results: a b <script>'); // a title cannot break out of its comment line
+    expect(text.split('\r\n')[0]).toBe('# Coilwright results,"a b <script>"'); // a title cannot break out of its comment line
+  });
+
+  it('a title or name built to run as a formula lands in a cell as plain text', () => {
+    const sheet = divider();
+    sheet.title = 'Bench,=1+1';
+    sheet.parts[0].ref = "=cmd|' /C calc'!A0";
+    sheet.parts[1].ref = '@SUM(1)';
+    const model = sheetToGraph(sheet);
+    const text = resultsCsv(model, solveGraph(model), sheet.title);
+    // split as a spreadsheet splits (RFC 4180), comment lines included: no text cell may begin with a formula character (numbers such as -2 are numbers)
+    for (const line of text.split('\r\n').filter(Boolean)) {
+      for (const cell of parseCsv(line.replace(/^#/, 'comment'))[0]) {
+        if (!Number.isFinite(Number(cell))) expect(cell).not.toMatch(/^[=+\-@\t\r]/);
+      }
+    }
+    expect(parseCsv(text.split('\r\n')[0].replace(/^#/, 'x'))[0]).toEqual(['x Coilwright results', 'Bench,=1+1']);
+    expect(parseCsv(text).map((r) => r[0])).toContain("'=cmd|' /C calc'!A0");
   });
 });
 

@@ -330,12 +330,18 @@ describe('escaping of everything a user typed', () => {
     expect(all).toContain('Coilwright 1 <b>');
   });
 
-  it('the embedded sheet survives "]]>", markup and control characters exactly', () => {
+  it('the embedded sheet survives "]]>" and markup exactly; control characters are carried and refused on reading', () => {
     const sheet = hostileSheet();
-    sheet.parts[1].ref = ']]><![CDATA[x]]>\u0000\uFFFF\uD800';
+    sheet.title = 'Bench <b> ]]>';
+    sheet.parts[1].ref = ']]><![CDATA[x]]>\uFFFF';
     const svg = sheetToSvg(sheet, null, OPTS);
     expect(xmlProblem(svg)).toBeNull();
     expect(svgToSheet(svg)).toEqual(sheet);
+    // a name no editor field accepts (names rule: no control characters, no broken UTF-16)
+    sheet.parts[1].ref = 'R\u0000\uD800';
+    const bad = sheetToSvg(sheet, null, OPTS);
+    expect(xmlProblem(bad)).toBeNull();
+    expect(() => svgToSheet(bad)).toThrow(/parts\[1\]\.ref: holds a control character \(U\+0000\)/);
   });
 });
 

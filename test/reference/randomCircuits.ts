@@ -21,6 +21,9 @@ export interface Spec {
   dots: boolean[];
 }
 
+/** A double in [min, max], with the subnormal and near-zero ones (which the graph reader refuses as values) as 0. */
+const physical = (min: number, max: number) => fc.double({ min, max, noNaN: true }).map((v) => (Math.abs(v) < 1e-100 ? 0 : v));
+
 /** Random circuit specifications of min..max nodes. */
 export const circuitSpec = (min: number, max: number) => fc
   .integer({ min, max })
@@ -35,9 +38,9 @@ export const circuitSpec = (min: number, max: number) => fc
         fc.record({ a: fc.nat(nodes - 1), b: fc.nat(nodes - 1), kind: fc.integer({ min: 0, max: 2 }), value: fc.double({ min: 0.1, max: 10, noNaN: true }) }),
         { maxLength: nodes },
       ),
-      sources: fc.array(fc.record({ edge: fc.nat(), mag: fc.double({ min: 0, max: 100, noNaN: true }), phase: fc.double({ min: -180, max: 180, noNaN: true }) }), { minLength: 1, maxLength: 3 }),
-      currents: fc.array(fc.record({ a: fc.nat(nodes - 1), b: fc.nat(nodes - 1), mag: fc.double({ min: 0, max: 2, noNaN: true }), phase: fc.double({ min: -180, max: 180, noNaN: true }) }), { maxLength: 3 }),
-      couplings: fc.array(fc.record({ i: fc.nat(), j: fc.nat(), k: fc.double({ min: 0, max: 0.98, noNaN: true }) }), { maxLength: 4 }),
+      sources: fc.array(fc.record({ edge: fc.nat(), mag: physical(0, 100), phase: fc.double({ min: -180, max: 180, noNaN: true }) }), { minLength: 1, maxLength: 3 }),
+      currents: fc.array(fc.record({ a: fc.nat(nodes - 1), b: fc.nat(nodes - 1), mag: physical(0, 2), phase: fc.double({ min: -180, max: 180, noNaN: true }) }), { maxLength: 3 }),
+      couplings: fc.array(fc.record({ i: fc.nat(), j: fc.nat(), k: physical(0, 0.98) }), { maxLength: 4 }),
       transformer: fc.boolean(),
       freq: fc.double({ min: 10, max: 1e5, noNaN: true }),
       dots: fc.array(fc.boolean(), { minLength: 200, maxLength: 200 }),

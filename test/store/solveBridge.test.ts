@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { seedIds } from '../../src/model/ids';
 import { isolationTransformerSheet } from '../../src/model/examples/isolation';
 import type { SolveResult } from '../../src/model/graph';
@@ -62,5 +62,63 @@ describe('solve bridge', () => {
     expect(s.result?.frequencyHz).toBe(50);
     expect(s.refusal?.message).toBe('coupling "K1": M too large');
     expect(s.refusal?.circuit?.couplingOfId.get('K1')).toBe(store.getState().sheet.couplings[0].id);
+  });
+});
+
+describe('solve watchdog', () => {
+  const options = { staleAfterMs: 1000, restartAfterMs: 5000, maxRestarts: 3 };
+  const setUp = () => {
+    const store = createEditorStore(isolationTransformerSheet(), 'sheet:t');
+    const workers: FakeWorker[] = [];
+    const bridge = attachSolver(store, () => { const w = new FakeWorker(); workers.push(w); return w; }, { ...options });
+    workers[0].answer(1, 50);
+    return { store, workers, bridge, edit: (f: number) => commit(store, { ...store.getState().sheet, frequencyHz: f }) };
+  };
+
+  it('greys the readings of an edit that gets no answer, then replaces the worker and asks again', () => {
+    vi.useFakeTimers();
+    try {
+      const { store, workers, edit } = setUp();
+      edit(60); // a worker that has died silently: no answer, no error
+      vi.advanceTimersByTime(999);
+      expect(store.getState().solve.stale).toBe(false);
+      vi.advanceTimersByTime(1);
+      expect(store.getState().solve).toMatchObject({ stale: true, status: 'solved' }); // the old values, greyed
+      vi.advanceTimersByTime(4000);
+      expect(workers[0].terminated).toBe(true);
+      expect(workers[1].posted.map((r) => r.model.frequencyHz)).toEqual([60]); // the latest edit, again
+      expect(store.getState().solve.restarts).toBe(1);
+      workers[1].answer(2, 60);
+      expect(store.getState().solve).toMatchObject({ stale: false, restarts: 0, stuck: false });
+      expect(store.getState().solve.result?.frequencyHz).toBe(60);
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+
+  it('stops after three replacements in a row and says so; the next edit or a retry starts afresh', () => {
+    vi.useFakeTimers();
+    try {
+      const { store, workers, bridge, edit } = setUp();
+      edit(60);
+      for (let i = 0; i < 4; i++) vi.advanceTimersByTime(5000);
+      expect(workers).toHaveLength(4); // the first and three replacements
+      expect(workers.every((w) => w.terminated)).toBe(true);
+      expect(store.getState().solve).toMatchObject({ stuck: true, stale: true, restarts: 3 });
+      vi.advanceTimersByTime(60_000);
+      expect(workers).toHaveLength(4); // no more tries on its own
+      bridge.retry();
+      expect(workers).toHaveLength(5);
+      expect(workers[4].posted.map((r) => r.model.frequencyHz)).toEqual([60]);
+      expect(store.getState().solve.stuck).toBe(false);
+      for (let i = 0; i < 4; i++) vi.advanceTimersByTime(5000);
+      expect(store.getState().solve.stuck).toBe(true);
+      edit(70); // an edit tries again too
+      expect(workers).toHaveLength(9);
+      workers[8].answer(3, 70);
+      expect(store.getState().solve).toMatchObject({ status: 'solved', stale: false, stuck: false, restarts: 0 });
+    } finally {
+      vi.useRealTimers();
+    }
   });
 });

@@ -48,7 +48,11 @@ describe('readings', () => {
     const byV = sortRows(rows.filter((r) => r.what === 'part'), 'vMag', -1).map((r) => r.name);
     expect(byV).toEqual(['I1', 'L1', 'L2']);
     const csv = readingsCsv(result(36, 0.5), rawRows(result(36, 0.5)), 'Test');
-    expect(csv).toContain('frequency 50 Hz, amplitudes RMS');
-    expect(csv).toContain('"L2",part,36,90,0.5,0,0,0');
+    expect(csv).toContain('frequency 50 Hz; amplitudes RMS');
+    expect(csv).toContain('"L2","part",36,90,0.5,0,0,0');
+    // a title and a name that a spreadsheet would run as formulas stay text (OWASP, CSV Injection)
+    const hostile = readingsCsv(result(36, 0.5), rawRows(result(36, 0.5)).map((r) => ({ ...r, name: `=${r.name}` })), 'Bench,=1+1');
+    expect(hostile.split('\n')[0]).toBe('# Coilwright readings,"Bench,=1+1"');
+    expect(hostile).toContain(`"'=L2","part"`);
   });
 });

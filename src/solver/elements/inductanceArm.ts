@@ -1,9 +1,9 @@
 import { z } from 'zod';
-import { finite, idField, twoNodes } from './schema';
+import { computableValue, idField, twoNodes } from './schema';
 import type { ElementDef } from './types';
 import { stampInductance } from './inductor';
 
-export const inductanceArmSchema = z.object({ id: idField, kind: z.literal('inductance-arm'), nodes: twoNodes, henries: finite });
+export const inductanceArmSchema = z.object({ id: idField, kind: z.literal('inductance-arm'), nodes: twoNodes, henries: computableValue });
 export type InductanceArmEl = z.infer<typeof inductanceArmSchema>;
 
 /**

@@ -4,11 +4,28 @@
  * increasing time lists. Each carries the wording its refusal prints.
  */
 import { z } from 'zod';
+import { nameProblem } from '../../model/names';
 
 export const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
-export const positive = finite.refine((v) => v > 0, { message: 'must be greater than 0' });
-export const nonNegative = finite.refine((v) => v >= 0, { message: 'must be 0 or more' });
-export const nodeName = z.string().min(1, { message: 'node names must be non-empty strings' });
+/**
+ * Values the solver computes with: zero, or between 1e-150 and 1e150 in size.
+ * Its pivots compare squared magnitudes, which overflow past about 1e154
+ * (IEEE 754 doubles), so a 5e-324 Ω resistor (a conductance of Infinity)
+ * or a 1e-200 Ω one would otherwise end as a matrix it cannot factor.
+ */
+export const VALUE_RANGE = 1e150;
+const computable = (v: number) => v === 0 || (Math.abs(v) >= 1 / VALUE_RANGE && Math.abs(v) <= VALUE_RANGE);
+const rangeMessage = { message: 'must lie between 1e-150 and 1e150 in size (the solver computes in double precision)' };
+/** A finite value in the solver's range, of either sign. */
+export const computableValue = finite.refine(computable, rangeMessage);
+export const positive = finite.refine((v) => v > 0, { message: 'must be greater than 0' }).refine(computable, rangeMessage);
+export const nonNegative = finite.refine((v) => v >= 0, { message: 'must be 0 or more' }).refine(computable, rangeMessage);
+/** A name (node, element, coupling) under the shared name rule of model/names.ts. */
+export const nameRule = (s: string, ctx: z.RefinementCtx) => {
+  const problem = nameProblem(s);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem });
+};
+export const nodeName = z.string().min(1, { message: 'node names must be non-empty strings' }).superRefine(nameRule);
 export const twoNodes = z.tuple([nodeName, nodeName], { message: 'must list exactly two node names' });
 export const fourNodes = z.tuple([nodeName, nodeName, nodeName, nodeName], {
   message: 'must list exactly four node names (primary dotted, primary other, secondary dotted, secondary other)',

@@ -5,6 +5,7 @@ import {
   type GraphModel,
   type SolveResult,
 } from '../../model/graph';
+import { nameTable } from '../../model/names';
 import { ModelRefusal } from '../errors';
 import { buildTopology, type Topology } from '../core/topology';
 import { checkSolvable } from '../core/checks';
@@ -177,6 +178,14 @@ export class SolverSession {
   }
 
   private singularRefusal(column: number, frequencyHz: number): ModelRefusal {
+    const extreme = this.extremeEntry();
+    if (extreme) {
+      const at = this.mna.unknownLabel(extreme.column);
+      return new ModelRefusal(
+        `${at.kind} "${at.id}": the values of the parts at it reach ${Number(extreme.size.toPrecision(3))} (siemens or ohms) at ${frequencyHz} Hz, too far from the circuit's other values for the solver's double precision; check the values of the parts at it (a resistance or inductance near zero, a capacitance far too large) or change the frequency`,
+        [at],
+      );
+    }
     const what = this.mna.unknownLabel(column);
     if (what.kind === 'node') {
       return new ModelRefusal(
@@ -192,16 +201,43 @@ export class SolverSession {
     return new ModelRefusal(`element "${what.id}" (${el.kind}): its current is undetermined at ${frequencyHz} Hz${hint}`, [what]);
   }
 
+  /**
+   * After a failed factorisation: the largest matrix entry, with its column,
+   * when it is beyond what the factorisation's squared magnitudes hold (above
+   * 1e150, as validate.ts bounds values) or more than 1e30 times the
+   * smallest, so far apart that double precision (16 digits) loses the
+   * smaller entirely; null when the values are ordinary.
+   */
+  private extremeEntry(): { column: number; size: number } | null {
+    const { re, im } = this;
+    const { colPtr, n } = this.mna.pattern;
+    let largest = 0;
+    let smallest = Infinity;
+    let column = -1;
+    for (let j = 0; j < n; j++) {
+      for (let s = colPtr[j]; s < colPtr[j + 1]; s++) {
+        const size = Math.max(Math.abs(re[s]), Math.abs(im[s]));
+        if (!(size <= largest)) {
+          largest = size;
+          column = j;
+        }
+        if (size > 0 && size < smallest) smallest = size;
+      }
+    }
+    return column >= 0 && (!(largest <= 1e150) || largest > 1e30 * smallest) ? { column, size: largest } : null;
+  }
+
   /** Builds the contract's result JSON from a raw solution. */
   toResult(sol: RawSolution, only?: { nodes?: Set<string>; elements?: Set<string> }): SolveResult {
     const { model, topo } = this;
     const dc = sol.frequencyHz === 0;
     const scale = dc || model.amplitudes === 'rms' ? 1 : 0.5;
-    const nodes: Record<string, ComplexJson> = Object.create(null);
+    // no prototype: a node or element named "__proto__" or "constructor" is an entry like any other
+    const nodes = nameTable<ComplexJson>();
     topo.nodeNames.forEach((name, v) => {
       if (!only?.nodes || only.nodes.has(name)) nodes[name] = c(sol.vRe[v], sol.vIm[v]);
     });
-    const elements: Record<string, ElementResult> = Object.create(null);
+    const elements = nameTable<ElementResult>();
     const port = { vr: 0, vi: 0, ir: 0, ii: 0 };
     model.elements.forEach((el, i) => {
       if (only?.elements && !only.elements.has(el.id)) return;
@@ -213,7 +249,7 @@ export class SolverSession {
         elements[el.id] = {
           voltage: c(vr, vi),
           current: c(ir, ii),
-          power: { watts: z(scale * (vr * ir + vi * ii)), vars: z(scale * (vi * ir - vr * ii)) },
+          power: powerOf(el.id, scale * (vr * ir + vi * ii), scale * (vi * ir - vr * ii), sol.frequencyHz),
         };
         return;
       }
@@ -226,7 +262,7 @@ export class SolverSession {
       elements[el.id] = {
         voltages: [c(vr, vi), c(vsr, vsi)],
         currents: [c(ipr, ipi), c(isr, isi)],
-        power: { watts: z(watts), vars: z(vars) },
+        power: powerOf(el.id, watts, vars, sol.frequencyHz),
       };
     });
     return {
@@ -306,6 +342,14 @@ function samePattern(a: CscPattern, b: CscPattern): boolean {
   for (let i = 0; i <= a.n; i++) if (a.colPtr[i] !== b.colPtr[i]) return false;
   for (let i = 0; i < a.rowIdx.length; i++) if (a.rowIdx[i] !== b.rowIdx[i]) return false;
   return true;
+}
+
+/** An element's complex power; a product beyond double range is refused, never printed as Infinity or null. */
+function powerOf(id: string, watts: number, vars: number, frequencyHz: number): { watts: number; vars: number } {
+  if (!Number.isFinite(watts) || !Number.isFinite(vars)) {
+    throw new ModelRefusal(`element "${id}": its power overflows at ${frequencyHz} Hz (more than 1.8e308 W or var); bring the circuit's voltages, currents and values nearer to everyday sizes`, [{ kind: 'element', id }]);
+  }
+  return { watts: z(watts), vars: z(vars) };
 }
 
 /** Normalises −0 to 0 so that JSON output never shows "-0". */

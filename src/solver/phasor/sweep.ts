@@ -1,4 +1,5 @@
 import { SWEEP_SCHEMA, type ComplexJson, type GraphModel, type SweepResult } from '../../model/graph';
+import { nameTable } from '../../model/names';
 import { ModelRefusal } from '../errors';
 import { SolverSession } from './session';
 import { portCount } from '../elements/registry';
@@ -7,20 +8,44 @@ import { portCount } from '../elements/registry';
 export function frequencyGrid(from: number, to: number, points: number, log: boolean): number[] {
   if (points === 1) return [from];
   const out: number[] = [];
-  for (let i = 0; i < points; i++) {
-    const t = i / (points - 1);
-    out.push(log ? from * Math.pow(to / from, t) : from + (to - from) * t);
-  }
-  out[points - 1] = to;
+  for (let i = 0; i < points; i++) out.push(frequencyAt(from, to, points, log, i));
   return out;
 }
 
+/** The i-th frequency of that grid, without building it (the last one is exactly `to`). */
+export function frequencyAt(from: number, to: number, points: number, log: boolean, i: number): number {
+  if (points === 1) return from;
+  if (i === points - 1) return to;
+  const t = i / (points - 1);
+  return log ? from * Math.pow(to / from, t) : from + (to - from) * t;
+}
+
 /**
- * Solves one model at each frequency. The structure is analysed once and each
+ * What each sweep point carries, in this order: the voltage of each probed
+ * node, then for each probed element its voltage and current (an ideal
+ * transformer: primary and secondary voltage, then primary and secondary current).
+ */
+export interface SweepLayout {
+  nodes: string[];
+  elements: { id: string; transformer: boolean }[];
+  /** complex values per point */
+  width: number;
+}
+
+/** A sweep solved one point at a time, so that a caller can write each point out and keep nothing. */
+export interface SweepStream {
+  layout: SweepLayout;
+  warnings: string[];
+  /** Solves at one frequency and writes the point's values into `out`: real and imaginary parts interleaved, 2·width numbers. */
+  solveInto(frequencyHz: number, out: Float64Array): void;
+}
+
+/**
+ * Prepares a sweep of one model: the structure is analysed once and each
  * point only refactors numerically. `probe` limits the output to the named
  * nodes and elements; an unknown name is refused.
  */
-export function sweepGraph(model: GraphModel, frequenciesHz: number[], probe?: string[]): SweepResult {
+export function sweepStream(model: GraphModel, probe?: string[]): SweepStream {
   const session = new SolverSession(model);
   const nodeNames = session.topo.nodeNames;
   let probeNodes: string[] = nodeNames;
@@ -38,13 +63,9 @@ export function sweepGraph(model: GraphModel, frequenciesHz: number[], probe?: s
     probeElements = model.elements.filter((e) => wanted.has(e.id));
   }
   const only = { nodes: new Set(probeNodes), elements: new Set(probeElements.map((e) => e.id)) };
-  const nodes: Record<string, ComplexJson[]> = {};
-  for (const n of probeNodes) nodes[n] = [];
-  const elements: SweepResult['elements'] = {};
-  for (const e of probeElements) {
-    elements[e.id] = portCount(e) === 2 ? { voltages: [], currents: [] } : { voltage: [], current: [] };
-  }
-  for (const f of frequenciesHz) {
+  const elements = probeElements.map((e) => ({ id: e.id, transformer: portCount(e) === 2 }));
+  const width = probeNodes.length + elements.reduce((n, e) => n + (e.transformer ? 4 : 2), 0);
+  const solveInto = (f: number, out: Float64Array) => {
     let res;
     try {
       res = session.toResult(session.solveRaw(f), only);
@@ -54,16 +75,55 @@ export function sweepGraph(model: GraphModel, frequenciesHz: number[], probe?: s
       }
       throw e;
     }
-    for (const n of probeNodes) nodes[n].push(res.nodes[n]);
-    for (const e of probeElements) {
+    let k = 0;
+    const put = (z: ComplexJson) => {
+      out[k++] = z.re;
+      out[k++] = z.im;
+    };
+    for (const n of probeNodes) put(res.nodes[n]);
+    for (const e of elements) {
       const r = res.elements[e.id];
-      const out = elements[e.id];
       if ('voltages' in r) {
-        out.voltages!.push(r.voltages);
-        out.currents!.push(r.currents);
+        put(r.voltages[0]);
+        put(r.voltages[1]);
+        put(r.currents[0]);
+        put(r.currents[1]);
       } else {
-        out.voltage!.push(r.voltage);
-        out.current!.push(r.current);
+        put(r.voltage);
+        put(r.current);
+      }
+    }
+  };
+  return { layout: { nodes: probeNodes, elements, width }, warnings: [...session.warnings], solveInto };
+}
+
+/** Solves one model at each frequency and gathers the whole sweep (see `sweepStream` for one point at a time). */
+export function sweepGraph(model: GraphModel, frequenciesHz: number[], probe?: string[]): SweepResult {
+  const stream = sweepStream(model, probe);
+  const { layout } = stream;
+  // no prototype: a node or element named "__proto__" or "constructor" is an entry like any other
+  const nodes = nameTable<ComplexJson[]>();
+  for (const n of layout.nodes) nodes[n] = [];
+  const elements = nameTable<SweepResult['elements'][string]>();
+  for (const e of layout.elements) elements[e.id] = e.transformer ? { voltages: [], currents: [] } : { voltage: [], current: [] };
+  const point = new Float64Array(2 * layout.width);
+  for (const f of frequenciesHz) {
+    stream.solveInto(f, point);
+    let k = 0;
+    const next = (): ComplexJson => {
+      const z = { re: point[k], im: point[k + 1] };
+      k += 2;
+      return z;
+    };
+    for (const n of layout.nodes) nodes[n].push(next());
+    for (const e of layout.elements) {
+      const out = elements[e.id];
+      if (e.transformer) {
+        out.voltages!.push([next(), next()]);
+        out.currents!.push([next(), next()]);
+      } else {
+        out.voltage!.push(next());
+        out.current!.push(next());
       }
     }
   }
@@ -73,7 +133,7 @@ export function sweepGraph(model: GraphModel, frequenciesHz: number[], probe?: s
     frequenciesHz: [...frequenciesHz],
     nodes,
     elements,
-    warnings: [...session.warnings],
+    warnings: stream.warnings,
   };
 }
 

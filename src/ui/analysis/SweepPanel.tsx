@@ -6,6 +6,7 @@ import type { SweepQuantity } from '../../model/analysisMessages';
 import { analysisStore, type SliderTarget, type SweepSettings } from '../../store/analysisStore';
 import { useEditorState } from '../../canvas/editorContext';
 import { Plot, type PlotSeries } from './Plot';
+import { csvComment } from '../../export/csvText';
 import { csvOf, findPeaks, phaseZeros, toDb, type Marker } from './plotMath';
 import { cancelSweep, decodeQ, encodeQ, labelOf, runSweep, traceOf } from './sweepRunner';
 import { useAnalysis } from './useSolved';
@@ -143,7 +144,7 @@ export function SweepPanel() {
       return r;
     });
     const amp = model?.amplitudes === 'peak' ? 'peak' : 'RMS';
-    const blob = new Blob([`# Coilwright frequency sweep, ${amp} phasors\n` + csvOf(header, rows)], { type: 'text/csv' });
+    const blob = new Blob([`${csvComment(`Coilwright frequency sweep; ${amp} phasors`)}\n${csvOf(header, rows)}`], { type: 'text/csv' });
     const a = document.createElement('a');
     a.href = URL.createObjectURL(blob);
     a.download = 'sweep.csv';

@@ -2,6 +2,7 @@
  * Pure helpers of the analysis plots: engineering ticks, peaks and phase
  * zero crossings, decibels and phase, steady-state waveforms, CSV.
  */
+import { csvField } from '../../export/csvText';
 import { formatSI } from '../../model/quantity';
 
 /** Ticks of a log axis at 1, 2 and 5 times each power of ten (fewer when the range spans many decades). */
@@ -100,9 +101,9 @@ export function waveform(re: number, im: number, frequencyHz: number, amplitudes
   return { t, y };
 }
 
-/** Comma-separated rows with a header; numbers in full precision. */
+/** Comma-separated rows with a header; numbers in full precision, text quoted and defused (export/csv). */
 export function csvOf(header: string[], rows: (number | string)[][]): string {
-  const cell = (v: number | string) => (typeof v === 'number' ? String(v) : /[",\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
+  const cell = (v: number | string) => (typeof v === 'number' ? String(v) : csvField(v));
   return [header.map(cell).join(','), ...rows.map((r) => r.map(cell).join(','))].join('\n') + '\n';
 }
 

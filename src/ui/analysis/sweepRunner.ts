@@ -7,6 +7,9 @@ import { analysisClient } from './client';
 
 let running: { cancel: () => void } | null = null;
 
+/** For browser tests: sweeps started while this is set wait after their first chunk until cancelled (they cannot finish before a cancel). */
+export const sweepTestHold = { on: false };
+
 const setSweep = (patch: Partial<ReturnType<typeof analysisStore.getState>['sweep']>) =>
   analysisStore.setState({ sweep: { ...analysisStore.getState().sweep, ...patch } });
 
@@ -37,7 +40,7 @@ export function runSweep(model: GraphModel): void {
   const m = slider ? withSlider(model, slider.target, slider.value) : model;
   const quantities: SweepQuantity[] = settings.traces.map((t) => t.quantity);
   setSweep({ status: 'running', progress: 0, message: '' });
-  const job = analysisClient().sweep(m, { from: settings.from, to: settings.to, points: settings.points, log: settings.log, quantities, chunk: 50 }, (done, total) => {
+  const job = analysisClient().sweep(m, { from: settings.from, to: settings.to, points: settings.points, log: settings.log, quantities, chunk: 50, hold: sweepTestHold.on }, (done, total) => {
     if (running === job) setSweep({ progress: done / total });
   });
   running = job;
@@ -91,25 +94,30 @@ export function traceOf(q: SweepQuantity): SweepTrace {
   return { label: labelOf(q), quantity: q, unit: unitOf(q) };
 }
 
-/** "node:n1" ↔ quantity, for selects. */
-export function encodeQ(q: SweepQuantity): string {
+/** A quantity as a select value and back: a JSON array, so any name (with ":" or "|" in it) survives. */
+type Encoded = [string, string] | ['ratio', Encoded, Encoded];
+
+function toArray(q: SweepQuantity): Encoded {
   switch (q.kind) {
-    case 'node': return `node:${q.node}`;
-    case 'zin': return `zin:${q.source}`;
-    case 'ratio': return `ratio:${encodeQ(q.num)}|${encodeQ(q.den)}`;
-    default: return `${q.kind}:${q.element}`;
+    case 'node': return ['node', q.node];
+    case 'zin': return ['zin', q.source];
+    case 'ratio': return ['ratio', toArray(q.num), toArray(q.den)];
+    default: return [q.kind, q.element];
   }
 }
 
+function fromArray(a: Encoded): SweepQuantity {
+  if (a[0] === 'ratio') return { kind: 'ratio', num: fromArray(a[1] as Encoded), den: fromArray(a[2] as Encoded) };
+  const [kind, name] = a as [string, string];
+  if (kind === 'node') return { kind: 'node', node: name };
+  if (kind === 'zin') return { kind: 'zin', source: name };
+  return { kind: kind as 'current' | 'voltage' | 'power', element: name };
+}
+
+export function encodeQ(q: SweepQuantity): string {
+  return JSON.stringify(toArray(q));
+}
+
 export function decodeQ(s: string): SweepQuantity {
-  const i = s.indexOf(':');
-  const kind = s.slice(0, i);
-  const rest = s.slice(i + 1);
-  if (kind === 'node') return { kind: 'node', node: rest };
-  if (kind === 'zin') return { kind: 'zin', source: rest };
-  if (kind === 'ratio') {
-    const [a, b] = rest.split('|');
-    return { kind: 'ratio', num: decodeQ(a), den: decodeQ(b) };
-  }
-  return { kind: kind as 'current' | 'voltage' | 'power', element: rest };
+  return fromArray(JSON.parse(s) as Encoded);
 }

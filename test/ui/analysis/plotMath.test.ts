@@ -63,6 +63,6 @@ describe('steady-state waveforms', () => {
 
 describe('CSV', () => {
   it('quotes text that holds commas or quotes', () => {
-    expect(csvOf(['f', 'a,b'], [[1, 'x"y']])).toBe('f,"a,b"\n1,"x""y"\n'); // RFC 4180 quoting
+    expect(csvOf(['f', 'a,b'], [[1, 'x"y'], [-2, '=1+1']])).toBe(`"f","a,b"\n1,"x""y"\n-2,"'=1+1"\n`); // RFC 4180 quoting; a formula defused (OWASP, CSV Injection)
   });
 });

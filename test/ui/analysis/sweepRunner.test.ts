@@ -10,9 +10,11 @@ describe('sweep quantities as select values', () => {
       { kind: 'zin', source: 'V1' },
       { kind: 'power', element: 'R3' },
       { kind: 'ratio', num: { kind: 'voltage', element: 'R3' }, den: { kind: 'node', node: 'n1' } },
+      // names may hold the characters an ad-hoc encoding would split on
+      { kind: 'ratio', num: { kind: 'node', node: 'a|b:c' }, den: { kind: 'current', element: '__proto__' } },
     ];
     for (const q of qs) expect(decodeQ(encodeQ(q))).toEqual(q); // identity
-    expect(qs.map(unitOf)).toEqual(['V', 'Ω', 'VA', '']); // SI units of each quantity; V/V is a pure number (SI brochure)
+    expect(qs.slice(0, 4).map(unitOf)).toEqual(['V', 'Ω', 'VA', '']); // SI units of each quantity; V/V is a pure number (SI brochure)
     expect(labelOf(qs[3])).toBe('V(R3) / V(n1)');
   });
 });
