@@ -16,7 +16,7 @@ test('sweep finds the resonance of the 85 kHz pair within 1 % of 1/(2π√(LC))'
     return { L: parts.find((p: any) => p.ref === 'L1').value, C: parts.find((p: any) => p.ref === 'C1').value };
   });
   const f0 = 1 / (2 * Math.PI * Math.sqrt(L * C)); // series resonance (field notes)
-  await page.getByRole('button', { name: /^Frequency sweep/ }).click();
+  await page.getByRole('button', { name: /^Sweep/ }).click();
   await expect(page.getByTestId('sweep-trace')).toHaveCount(1); // Z seen by V1, offered first
   await page.getByTestId('sweep-quantity').selectOption({ label: 'I(R3) current' });
   await page.getByTestId('sweep-add').click();
@@ -44,7 +44,7 @@ test('sweep finds the resonance of the 85 kHz pair within 1 % of 1/(2π√(LC))'
 
 test('a long sweep shows progress and can be cancelled', async ({ page }) => {
   await openWireless(page);
-  await page.getByRole('button', { name: /^Frequency sweep/ }).click();
+  await page.getByRole('button', { name: /^Sweep/ }).click();
   await page.getByTestId('sweep-points').fill('100000');
   await page.getByTestId('sweep-run').click();
   await expect(page.getByTestId('sweep-status')).toHaveAttribute('data-status', 'running');
@@ -56,7 +56,7 @@ test('a long sweep shows progress and can be cancelled', async ({ page }) => {
 
 test('dragging the k slider moves the plot (frequency splitting)', async ({ page }, info) => {
   await openWireless(page);
-  await page.getByRole('button', { name: /^Frequency sweep/ }).click();
+  await page.getByRole('button', { name: /^Sweep/ }).click();
   await page.getByTestId('sweep-quantity').selectOption({ label: 'I(R3) current' });
   await page.getByTestId('sweep-add').click();
   await page.getByTestId('sweep-run').click();

@@ -45,6 +45,6 @@ const tools = new ToolController(store);
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
-    <App store={store} tools={tools} storage={storage} />
+    <App store={store} tools={tools} storage={storage} readGraph={(json) => import('./solver').then((m) => m.parseGraphModel(json))} />
   </StrictMode>,
 );

@@ -1,13 +1,13 @@
 /** Draws the sheet itself: grid, wires, junctions, open ends, parts, labels, couplings, selection. */
 import { GRID, type Rect } from '../model/geometry';
 import { couplingGeometry, couplingLabelBox } from '../model/hit';
-import { PART_DEFS, dotPosition, partBox } from '../model/parts/registry';
+import { PART_DEFS, partBox, partMarks } from '../model/parts/registry';
 import type { SymbolStyle } from '../model/parts/types';
 import type { Sheet } from '../model/sheet';
-import { couplingText, labelNameSpot, partLabelSpot } from '../model/drawLayout';
+import { couplingText, partLabelSpot } from '../model/drawLayout';
 import type { Topology } from '../model/topology';
 import type { View } from '../store/types';
-import { drawPrims } from './drawPrims';
+import { drawMarks, drawPrims } from './drawPrims';
 import { THEME } from './theme';
 
 export function visibleRect(v: View, width: number, height: number): Rect {
@@ -128,20 +128,7 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
       c.setLineDash([]);
     }
     drawPrims(c, p, def.draw(p, o.style), bad ? THEME.error : sel ? THEME.select : THEME.ink);
-    if (p.kind === 'winding') {
-      const d = dotPosition(p)!;
-      c.fillStyle = bad ? THEME.error : THEME.ink;
-      c.beginPath();
-      c.arc(d.x, d.y, 2.8, 0, Math.PI * 2);
-      c.fill();
-    }
-    if (p.kind === 'label') {
-      c.fillStyle = THEME.ink;
-      c.font = `600 10px ${THEME.mono}`;
-      c.textAlign = 'left';
-      const at = labelNameSpot(p);
-      c.fillText(p.name ?? '', at.x, at.y);
-    }
+    drawMarks(c, partMarks(p), bad ? THEME.error : THEME.ink);
     if (detail && def.prefix) {
       const spot = partLabelSpot(p, box);
       c.textAlign = spot.align;

@@ -8,11 +8,11 @@ import type { Point, Rect } from '../model/geometry';
 import { toSheet } from '../model/geometry';
 import type { RefusalCulprit, SolveResult } from '../model/graph';
 import { couplingGeometry, couplingLabelBox } from '../model/hit';
-import { PART_DEFS, dotPosition, partBox } from '../model/parts/registry';
+import { PART_DEFS, partBox, partMarks } from '../model/parts/registry';
 import type { Prim } from '../model/parts/types';
 import type { Part, Sheet } from '../model/sheet';
 import type { DerivedCircuit } from '../model/toGraph';
-import { couplingText, declutterTags, labelNameSpot, overlayLayout, partLabelSpot, tagBox, type Align, type OverlayLayout, type TagLayout, type TextMeasure } from '../model/drawLayout';
+import { couplingText, declutterTags, overlayLayout, partLabelSpot, tagBox, type Align, type OverlayLayout, type TagLayout, type TextMeasure } from '../model/drawLayout';
 import { PRINT } from './palette';
 import { MONO, num, textWidth, type Face } from './text';
 import { escText } from './xml';
@@ -245,8 +245,7 @@ export function drawSchematic(sheet: Sheet, circuit: DerivedCircuit, result: Sol
         const at = toSheet(p, q.x, q.y);
         out.push(text(q.s, at.x, at.y, { size: q.size, fill: PRINT.ink, attrs: 'stroke="none"' }));
       }
-      const dot = dotPosition(p);
-      if (dot && p.kind === 'winding') out.push(`<circle cx="${num(dot.x)}" cy="${num(dot.y)}" r="2.8" fill="${PRINT.ink}" stroke="none" class="polarity-dot"/>`);
+      for (const m of partMarks(p)) if (m.t === 'dot') out.push(`<circle cx="${num(m.x)}" cy="${num(m.y)}" r="${num(m.r)}" fill="${PRINT.ink}" stroke="none" class="${m.role}"/>`);
     }
     out.push('</g>');
 
@@ -256,9 +255,9 @@ export function drawSchematic(sheet: Sheet, circuit: DerivedCircuit, result: Sol
       out.push(text(l.value, l.x, l.y + 12, { size: VALUE_SIZE, fill: PRINT.value, align: l.align, cls: 'value' }));
     }
     for (const p of sheet.parts) {
-      if (p.kind !== 'label') continue;
-      const at = labelNameSpot(p);
-      out.push(text(p.name ?? '', at.x, at.y, { size: 10, fill: PRINT.ink, weight: 600, font: MONO, cls: 'node-label' }));
+      for (const m of partMarks(p)) {
+        if (m.t === 'text') out.push(text(m.s, m.x, m.y, { size: m.size, fill: PRINT.ink, weight: m.bold ? 600 : undefined, font: m.mono ? MONO : undefined, cls: m.role }));
+      }
     }
     out.push('</g>');
 

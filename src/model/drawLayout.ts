@@ -42,17 +42,9 @@ export function rectText(z: ComplexJson, unit: string, digits = 4): string {
 
 /** Where a part's designator goes (its value text sits one line, 12 units, below). */
 export function partLabelSpot(part: Part, box: Rect): { x: number; y: number; align: Align } {
-  if (part.kind === 'transformer') return { x: (box.x0 + box.x1) / 2, y: box.y1 + 14, align: 'center' };
+  if (PART_DEFS[part.kind].labelBelow) return { x: (box.x0 + box.x1) / 2, y: box.y1 + 14, align: 'center' };
   if (part.rot % 2 === 1) return { x: box.x1 + 6, y: (box.y0 + box.y1) / 2 - 6, align: 'left' };
   return { x: (box.x0 + box.x1) / 2, y: box.y0 - 14, align: 'center' };
-}
-
-/** Where a node label's name is written (baseline start). */
-export function labelNameSpot(part: Part): Point {
-  const box = partBox(part);
-  const pin = pinPositions(part)[0];
-  const flipped = part.rot === 2 || (part.mirror && part.rot === 0);
-  return { x: flipped ? box.x0 + 4 : pin.x + 9, y: pin.y + 3.5 + (part.rot % 2 ? 16 : 0) };
 }
 
 /** The text of a coupling's label: its designator and k or M. */

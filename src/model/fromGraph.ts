@@ -5,26 +5,9 @@
  */
 import type { GraphElement, GraphModel } from './graph';
 import { newId } from './ids';
-import { PART_DEFS, pinPositions } from './parts/registry';
-import { SHEET_SCHEMA, type Part, type PartKind, type Sheet } from './sheet';
+import { PART_DEFS, PART_OF_ELEMENT, pinPositions } from './parts/registry';
+import { SHEET_SCHEMA, type Part, type Sheet } from './sheet';
 
-const KIND: Record<GraphElement['kind'], PartKind> = {
-  resistor: 'resistor', inductor: 'winding', capacitor: 'capacitor',
-  'voltage-source': 'vsource', 'current-source': 'isource', 'ideal-transformer': 'transformer',
-  'inductance-arm': 'arm',
-};
-
-function valueOf(el: GraphElement): Partial<Part> {
-  switch (el.kind) {
-    case 'resistor': return { value: el.ohms };
-    case 'inductor': return { value: el.henries, dot: el.dot ?? 'first' };
-    case 'inductance-arm': return { value: el.henries };
-    case 'capacitor': return { value: el.farads };
-    case 'voltage-source':
-    case 'current-source': return { value: el.magnitude, phaseDeg: el.phaseDeg };
-    case 'ideal-transformer': return { value: el.ratio };
-  }
-}
 
 export function graphToSheet(model: GraphModel, title = 'Imported graph model'): Sheet {
   const parts: Part[] = [];
@@ -33,11 +16,11 @@ export function graphToSheet(model: GraphModel, title = 'Imported graph model'):
   let x = 100;
   const y = 220;
   for (const el of model.elements) {
-    const kind = KIND[el.kind];
+    const kind = PART_OF_ELEMENT[el.kind];
     const def = PART_DEFS[kind];
-    const wide = kind === 'transformer';
+    const wide = def.pins.length > 2;
     if (wide) x += 30;
-    const part: Part = { id: newId('part'), kind, x, y, rot: wide ? 0 : 1, mirror: false, ref: el.id, ...def.defaults, ...valueOf(el) };
+    const part: Part = { id: newId('part'), kind, x, y, rot: wide ? 0 : 1, mirror: false, ref: el.id, ...def.defaults, ...def.fromElement!.values(el) };
     parts.push(part);
     idOf.set(el.id, part.id);
     pinPositions(part).forEach((pin, i) => {

@@ -30,10 +30,8 @@ export function couplingLabelBox(at: Point): Rect {
 
 export function hitTest(sheet: Sheet, p: Point, tol: number, opts: { pins?: boolean } = {}): Hit {
   for (let i = sheet.parts.length - 1; i >= 0; i--) {
-    const part = sheet.parts[i];
-    if (part.kind !== 'winding') continue;
-    const d = dotPosition(part);
-    if (d && Math.hypot(d.x - p.x, d.y - p.y) <= Math.max(5, tol)) return { type: 'dot', id: part.id };
+    const d = dotPosition(sheet.parts[i]);
+    if (d && Math.hypot(d.x - p.x, d.y - p.y) <= Math.max(5, tol)) return { type: 'dot', id: sheet.parts[i].id };
   }
   if (opts.pins) {
     for (let i = sheet.parts.length - 1; i >= 0; i--) {

@@ -22,9 +22,6 @@ export const PART_KINDS: readonly PartKind[] = [
   'resistor', 'winding', 'capacitor', 'vsource', 'isource', 'transformer', 'ground', 'label', 'arm',
 ];
 
-/** The kinds offered on the parts shelf (equivalent arms come only from a T-equivalent). */
-export const SHELF_KINDS: readonly PartKind[] = PART_KINDS.filter((k) => k !== 'arm');
-
 export interface Part {
   id: string;
   kind: PartKind;

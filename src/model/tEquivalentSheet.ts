@@ -10,7 +10,7 @@
 import { nextRef, usedRefs } from './designators';
 import { pointKey, type Point, type QuarterTurns } from './geometry';
 import { newId } from './ids';
-import { pinPositions } from './parts/registry';
+import { PART_DEFS, pinPositions } from './parts/registry';
 import type { Part, Sheet, SheetCoupling } from './sheet';
 
 export interface TArms { arm1: number; arm2: number; shunt: number; shared: boolean; outerPins: [0 | 1, 0 | 1] }
@@ -60,7 +60,7 @@ function labelAt(name: string, at: Point, from: Point): Part {
 }
 
 function uniqueLabel(sheet: Sheet, base: string): string {
-  const used = new Set(sheet.parts.filter((p) => p.kind === 'label').map((p) => (p.name ?? '').toLowerCase()));
+  const used = new Set(sheet.parts.filter((p) => PART_DEFS[p.kind].nameField).map((p) => (p.name ?? '').toLowerCase()));
   let n = base;
   for (let i = 2; used.has(n.toLowerCase()) || n.toLowerCase() === 'gnd'; i++) n = `${base}${i}`;
   return n;

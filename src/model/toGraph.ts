@@ -1,6 +1,6 @@
 /** Sheet → graph model, keeping the links the overlays need (element → part, node → anchor). */
 import { GRAPH_SCHEMA, type Coupling, type GraphElement, type GraphModel } from './graph';
-import { PART_DEFS } from './parts/registry';
+import { PART_DEFS, isSource } from './parts/registry';
 import type { Sheet } from './sheet';
 import { deriveTopology, type Topology } from './topology';
 
@@ -41,7 +41,7 @@ export function deriveCircuit(sheet: Sheet): DerivedCircuit {
   const notes: string[] = [];
   let ground = 'gnd';
   if (!topology.hasGround) {
-    const firstSource = sheet.parts.findIndex((p) => p.kind === 'vsource' || p.kind === 'isource');
+    const firstSource = sheet.parts.findIndex(isSource);
     const pick = firstSource >= 0 ? topology.pinNodes[firstSource][1] : topology.nodeNames[0];
     if (pick) {
       ground = pick;

@@ -26,6 +26,8 @@ export interface ViewSlice {
   preview: Sheet | null;
   ghost: Ghost | null;
   wireDraft: number[] | null;
+  /** the pin the keyboard points at while wiring */
+  pinCursor: { x: number; y: number } | null;
   box: Rect | null;
   notice: { text: string; tone: 'info' | 'error' } | null;
   clipboard: Fragment | null;

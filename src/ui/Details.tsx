@@ -1,12 +1,12 @@
 /** The details panel: edits the selected part or coupling, or the sheet when nothing is selected. */
 import { formatEditable } from '../model/quantity';
-import { PART_DEFS } from '../model/parts/registry';
+import { PART_DEFS, isCouplable } from '../model/parts/registry';
 import * as E from '../model/edits';
 import type { Part, SheetCoupling } from '../model/sheet';
 import { commit, renamePart } from '../store/actions';
 import { CommandButton } from './CommandButton';
 import { Field, quantity } from './Field';
-import { useEditor, useEditorState } from '../canvas/editorContext';
+import { useEditor, useEditorState } from './editorContext';
 
 export function Details() {
   const selection = useEditorState((s) => s.selection);
@@ -14,7 +14,7 @@ export function Details() {
   const items = selection.map((id) => sheet.parts.find((p) => p.id === id) ?? sheet.couplings.find((c) => c.id === id) ?? sheet.wires.find((w) => w.id === id)).filter(Boolean);
   let body;
   if (items.length === 0) body = <SheetDetails />;
-  else if (items.length > 1) body = <Several count={items.length} windings={items.filter((x) => 'kind' in x! && x.kind === 'winding').length} />;
+  else if (items.length > 1) body = <Several count={items.length} windings={items.filter((x) => 'kind' in x! && isCouplable(x as Part)).length} />;
   else if ('kind' in items[0]!) body = <PartDetails part={items[0] as Part} />;
   else if ('windings' in items[0]!) body = <CouplingDetails c={items[0] as SheetCoupling} />;
   else body = <p className="muted">A wire. Drag one of its pieces sideways to reroute it (its ends stay put); Delete removes it.</p>;
@@ -78,8 +78,8 @@ function PartDetails({ part }: { part: Part }) {
     <div className="form" data-testid="part-details">
       <p className="kind">{def.label}</p>
       {def.prefix && <Field label="Designator" value={part.ref} testId="field-ref" apply={(t) => renamePart(store, part.id, t)} />}
-      {part.kind === 'label' && (
-        <Field label="Node name" value={part.name ?? ''} testId="field-name" hint="Labels with the same name are one node"
+      {def.nameField && (
+        <Field label={def.nameField.label} value={part.name ?? ''} testId="field-name" hint={def.nameField.hint}
           apply={(t) => (/^[A-Za-z_][A-Za-z0-9_]*$/.test(t.trim()) ? (patch({ name: t.trim() }), null) : 'Use a letter followed by letters, digits or _')} />
       )}
       {def.fields.map((f) => (
@@ -98,7 +98,7 @@ function PartDetails({ part }: { part: Part }) {
           }}
         />
       ))}
-      {part.kind === 'winding' && (
+      {def.couplable && (
         <div className="field">
           <span className="label">Polarity dot</span>
           <div className="row-buttons">

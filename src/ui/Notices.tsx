@@ -1,7 +1,7 @@
 /** Refusals, warnings, cautions and short messages, under the sheet. */
 import { useMemo } from 'react';
 import { cautionsFor } from '../model/cautions';
-import { useEditor, useEditorState } from '../canvas/editorContext';
+import { useEditor, useEditorState } from './editorContext';
 
 export function Notices() {
   const { store } = useEditor();

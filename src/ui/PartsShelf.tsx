@@ -1,8 +1,8 @@
 /** The left column: tools and the shelf of parts to place. */
-import { SHELF_KINDS } from '../model/sheet';
+import { PART_DEFS, SHELF_KINDS } from '../model/parts/registry';
 import { CommandButton } from './CommandButton';
 import { PartIcon } from './icons';
-import { useEditorState } from '../canvas/editorContext';
+import { useEditorState } from './editorContext';
 
 export function PartsShelf() {
   const tool = useEditorState((s) => s.tool);
@@ -18,11 +18,11 @@ export function PartsShelf() {
       </div>
       <h2 className="panel-title">Parts</h2>
       <div className="shelf-parts">
-        {SHELF_KINDS.map((k, i) => (
+        {SHELF_KINDS.map((k) => (
           <CommandButton key={k} id={`place-${k}`} pressed={tool === 'place' && ghostKind === k} className="part-btn">
             <PartIcon kind={k} style={symbols} />
-            <span className="part-name">{labelOf(k)}</span>
-            <kbd>{i + 1}</kbd>
+            <span className="part-name">{PART_DEFS[k].label}</span>
+            <kbd>{PART_DEFS[k].shelfKey}</kbd>
           </CommandButton>
         ))}
       </div>
@@ -54,8 +54,4 @@ export function PartsShelf() {
       </div>
     </nav>
   );
-}
-
-function labelOf(k: string): string {
-  return ({ resistor: 'Resistor', winding: 'Winding', capacitor: 'Capacitor', vsource: 'Voltage source', isource: 'Current source', transformer: 'Ideal transformer', ground: 'Ground', label: 'Node label' } as Record<string, string>)[k];
 }

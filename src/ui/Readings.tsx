@@ -4,7 +4,7 @@ import { formatAngle, formatSI } from '../model/quantity';
 import { rectText } from '../model/drawLayout';
 import { CommandButton } from './CommandButton';
 import { readingRows, sortRows, type SortKey } from './readings';
-import { useEditor, useEditorState } from '../canvas/editorContext';
+import { useEditor, useEditorState } from './editorContext';
 
 const COLS: { key: SortKey; label: string; unit?: string }[] = [
   { key: 'name', label: 'Name' },

@@ -24,7 +24,9 @@ describe('commands as data', () => {
     expect(chordOf(key('Z', { mod: true, shift: true }))).toBe('mod+shift+z');
     expect(chordOf(key('ArrowLeft', { shift: true }))).toBe('shift+arrowleft');
     expect(chordOf(key('+', { shift: true }))).toBe('+');
-    expect(findCommand(key('k'))?.id).toBe('link');
+    expect(findCommand(key('c'))?.id).toBe('link'); // C couples the selected windings
+    expect(findCommand(key('/'))?.id).toBe('command-list');
+    expect(findCommand(key('.'))?.id).toBe('turn');
     expect(findCommand(key('Delete'))?.id).toBe('remove');
     expect(keyLabel('mod+shift+z')).toBe('Ctrl+Shift+Z');
     expect(keyLabel('+')).toBe('+');

@@ -4,7 +4,7 @@ import type { InspectAnswer } from '../../model/analysisMessages';
 import * as E from '../../model/edits';
 import { formatEditable, formatSI } from '../../model/quantity';
 import { commit } from '../../store/actions';
-import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { useEditor, useEditorState } from '../editorContext';
 import { Field, quantity } from '../Field';
 import { analysisClient } from './client';
 import { polarText, rectangularText } from './format';

@@ -4,7 +4,7 @@ import { formatSI, parseSimple } from '../../model/quantity';
 import type { GraphModel } from '../../model/graph';
 import type { SweepQuantity } from '../../model/analysisMessages';
 import { analysisStore, type SliderTarget, type SweepSettings } from '../../store/analysisStore';
-import { useEditorState } from '../../canvas/editorContext';
+import { useEditorState } from '../editorContext';
 import { Plot, type PlotSeries } from './Plot';
 import { csvOf, findPeaks, phaseZeros, toDb, type Marker } from './plotMath';
 import { cancelSweep, decodeQ, encodeQ, labelOf, runSweep, traceOf } from './sweepRunner';

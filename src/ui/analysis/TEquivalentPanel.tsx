@@ -5,7 +5,7 @@ import { formatSI } from '../../model/quantity';
 import { portAgreement } from '../../model/resultCompare';
 import { drawTEquivalent, latestSubstitution } from '../../store/analysisActions';
 import { analysisStore } from '../../store/analysisStore';
-import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { useEditor, useEditorState } from '../editorContext';
 import { CommandButton } from '../CommandButton';
 import { analysisClient } from './client';
 import { graphCouplingId, selectedCoupling, useAnalysis, useSolved } from './useSolved';

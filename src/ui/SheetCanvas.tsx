@@ -15,12 +15,12 @@ import { overlayDrawn, sheetProbe } from '../store/probe';
 import type { EditorState } from '../store/types';
 import type { PointerInput } from '../tools/machine';
 import { useEditor, useEditorState } from './editorContext';
-import { culpritIds, drawOverlay } from './drawOverlay';
-import { drawPrims } from './drawPrims';
-import { drawGrid, drawSheet, visibleRect } from './drawSheet';
-import { DragDrawing } from './dragDrawing';
-import { nodeNear } from './hover';
-import { THEME } from './theme';
+import { culpritIds, drawOverlay } from '../canvas/drawOverlay';
+import { drawPrims } from '../canvas/drawPrims';
+import { drawGrid, drawSheet, visibleRect } from '../canvas/drawSheet';
+import { DragDrawing } from '../canvas/dragDrawing';
+import { nodeNear } from '../canvas/hover';
+import { THEME } from '../canvas/theme';
 
 /** longest an edit waits (one frame) for its solve so both show together; the editor itself never blocks on the solver */
 const HOLD_MS = 16;
@@ -105,7 +105,7 @@ export function SheetCanvas() {
   };
 
   const uiFunc = (ctx: Konva.Context) => {
-    const { view, ghost, wireDraft: draft, box, symbols } = store.getState();
+    const { view, ghost, wireDraft: draft, box, symbols, pinCursor } = store.getState();
     const c = native(ctx);
     c.save();
     c.translate(view.x, view.y);
@@ -121,6 +121,18 @@ export function SheetCanvas() {
       for (let i = 2; i < draft.length; i += 2) c.lineTo(draft[i], draft[i + 1]);
       c.stroke();
       c.setLineDash([]);
+    }
+    if (pinCursor) {
+      // the keyboard's pin: a ring and a cross, visible on any background
+      c.strokeStyle = THEME.draft;
+      c.lineWidth = 2 / view.zoom;
+      c.beginPath();
+      c.arc(pinCursor.x, pinCursor.y, 7, 0, Math.PI * 2);
+      c.moveTo(pinCursor.x - 11, pinCursor.y);
+      c.lineTo(pinCursor.x + 11, pinCursor.y);
+      c.moveTo(pinCursor.x, pinCursor.y - 11);
+      c.lineTo(pinCursor.x, pinCursor.y + 11);
+      c.stroke();
     }
     if (box) {
       c.fillStyle = THEME.selectFill;
@@ -175,7 +187,7 @@ export function SheetCanvas() {
         if (s.sheet !== p.sheet || s.hoverNode !== p.hoverNode || s.readout !== p.readout || (s.preview === null) !== (p.preview === null)) overlay.current?.batchDraw();
       }
       if (s.selection !== p.selection) sheetLayer.current?.batchDraw();
-      if (s.ghost !== p.ghost || s.wireDraft !== p.wireDraft || s.box !== p.box) ui.current?.batchDraw();
+      if (s.ghost !== p.ghost || s.wireDraft !== p.wireDraft || s.box !== p.box || s.pinCursor !== p.pinCursor) ui.current?.batchDraw();
     });
     return () => {
       if (held) clearTimeout(held);
