@@ -119,7 +119,7 @@ test('draw a coupled circuit from nothing and read the load current', async ({ p
   await clickSheet(page, 200, 170);
   await page.getByTestId('field-value').fill('fifty ohms');
   await page.getByTestId('field-value').press('Enter');
-  await expect(page.locator('.field-error')).toContainText('not a number or expression');
+  await expect(page.locator('.field-error')).toContainText('"fifty" is not a known name');
   await expect(page.locator('.field-error')).toContainText('still 50');
   await page.getByTestId('field-value').fill('-5');
   await page.getByTestId('field-value').press('Enter');

@@ -38,6 +38,8 @@ export interface SheetDrawOptions {
   selection: Set<string>;
   topology: Topology | null;
   culprits: Set<string>;
+  /** parts a hazard caution is about: marked in the caution colour with a warning sign */
+  hazards?: Set<string>;
   view: View;
   visible: Rect;
   style?: SymbolStyle;
@@ -126,6 +128,20 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
       c.fillRect(box.x0 - 4, box.y0 - 4, box.x1 - box.x0 + 8, box.y1 - box.y0 + 8);
       c.strokeRect(box.x0 - 4, box.y0 - 4, box.x1 - box.x0 + 8, box.y1 - box.y0 + 8);
       c.setLineDash([]);
+    }
+    if (o.hazards?.has(p.id)) {
+      c.strokeStyle = THEME.hazard;
+      c.fillStyle = THEME.hazardFill;
+      c.lineWidth = 2;
+      c.setLineDash([5, 3]);
+      c.fillRect(box.x0 - 7, box.y0 - 7, box.x1 - box.x0 + 14, box.y1 - box.y0 + 14);
+      c.strokeRect(box.x0 - 7, box.y0 - 7, box.x1 - box.x0 + 14, box.y1 - box.y0 + 14);
+      c.setLineDash([]);
+      c.fillStyle = THEME.hazard;
+      c.font = `700 14px ${THEME.font}`;
+      c.textAlign = 'center';
+      c.fillText('⚠', box.x0 - 7, box.y0 - 9);
+      c.lineWidth = lw;
     }
     drawPrims(c, p, def.draw(p, o.style), bad ? THEME.error : sel ? THEME.select : THEME.ink);
     drawMarks(c, partMarks(p), bad ? THEME.error : THEME.ink);

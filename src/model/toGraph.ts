@@ -40,12 +40,16 @@ export function deriveCircuit(sheet: Sheet): DerivedCircuit {
   }
   const notes: string[] = [];
   let ground = 'gnd';
-  if (!topology.hasGround) {
+  // a ground symbol that no part reaches yet (placed before the wires) grounds nothing
+  const grounded = topology.hasGround && elements.some((e) => e.nodes.includes('gnd'));
+  if (!grounded) {
     const firstSource = sheet.parts.findIndex(isSource);
     const pick = firstSource >= 0 ? topology.pinNodes[firstSource][1] : topology.nodeNames[0];
     if (pick) {
       ground = pick;
-      notes.push(`No ground symbol on the sheet: voltages are measured from node ${pick}`);
+      notes.push(topology.hasGround
+        ? `The ground symbol is not wired to any part yet: voltages are measured from node ${pick} until it is`
+        : `No ground symbol on the sheet: voltages are measured from node ${pick}`);
     }
   }
   const model: GraphModel = {

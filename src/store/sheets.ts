@@ -5,7 +5,7 @@ import { readSheet, removeSheet, writeSheet, type KeyValueStorage } from './libr
 import type { EditorStore } from './types';
 
 export function loadSheet(store: EditorStore, sheet: Sheet, id: string = newId('sheet')): void {
-  store.setState({ sheet, sheetId: id, selection: [], preview: null, ghost: null, wireDraft: null, box: null, visit: null });
+  store.setState({ sheet, sheetId: id, selection: [], preview: null, ghost: null, wireDraft: null, pinCursor: null, box: null, visit: null, notice: null });
   store.temporal.getState().clear();
 }
 

@@ -9,6 +9,7 @@ import { deriveCircuit, type DerivedCircuit } from '../model/toGraph';
 import type { EditorStore } from './types';
 import type { SolveReply, SolveRequest } from '../model/solveMessages';
 import { overlayProbe } from './probe';
+import { floorResult } from '../model/resultFloor';
 
 export interface WorkerLike {
   postMessage(msg: SolveRequest): void;
@@ -52,7 +53,7 @@ export function attachSolver(store: EditorStore, makeWorker: () => WorkerLike): 
     if (r.seq !== seq || !circuit) return; // superseded by a newer edit
     const prev = store.getState().solve;
     if (r.ok) {
-      store.setState({ solve: { ...prev, status: 'solved', result: r.result, circuit, refusal: null, stale: false, seq: r.seq, solveMs: r.ms } });
+      store.setState({ solve: { ...prev, status: 'solved', result: floorResult(r.result), raw: r.result, circuit, refusal: null, stale: false, seq: r.seq, solveMs: r.ms } });
     } else {
       store.setState({ solve: { ...prev, status: 'refused', refusal: { message: r.message, culprits: r.culprits, circuit }, stale: prev.result !== null, seq: r.seq, solveMs: r.ms } });
     }

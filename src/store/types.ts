@@ -48,8 +48,10 @@ export interface Refusal {
 export interface SolveSlice {
   solve: {
     status: 'idle' | 'solved' | 'refused';
-    /** the latest good result and the circuit it belongs to (kept, greyed, while refused) */
+    /** the latest good result and the circuit it belongs to (kept, greyed, while refused); rounding noise shown as 0 */
     result: SolveResult | null;
+    /** the same result exactly as solved (for the CSV files, which match the command line) */
+    raw?: SolveResult | null;
     circuit: DerivedCircuit | null;
     refusal: Refusal | null;
     stale: boolean;

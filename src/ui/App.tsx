@@ -69,7 +69,7 @@ export function App({ store, tools, storage, readGraph }: { store: EditorStore; 
     copyReadings: () => {
       const s = store.getState();
       if (!s.solve.result) return notify(store, 'Nothing solved to copy yet');
-      const csv = readingsCsv(s.solve.result, rawRows(s.solve.result), s.sheet.title);
+      const csv = readingsCsv(s.solve.result, rawRows(s.solve.raw ?? s.solve.result), s.sheet.title);
       navigator.clipboard?.writeText(csv).then(
         () => notify(store, 'Readings copied as CSV'),
         () => notify(store, 'The browser did not allow copying to the clipboard', 'error'),

@@ -35,7 +35,7 @@ function SheetDetails() {
       <p className="muted">The sheet (select a part to edit it).</p>
       <Field label="Title" value={sheet.title} testId="sheet-title" apply={(t) => (t.trim() ? (set({ title: t.trim() }), null) : 'A title cannot be empty')} />
       <Field
-        label="Frequency" unit="Hz" value={formatEditable(sheet.frequencyHz, 'Hz')} testId="sheet-frequency"
+        label="Frequency" unit="Hz" value={formatEditable(sheet.frequencyHz, 'Hz')} testId="sheet-frequency" live
         hint="e.g. 50, 85k, 1/(2*pi*1e-3)"
         apply={async (t) => {
           const r = await quantity(t, 'Hz', (v) => (v >= 0 ? null : 'Frequency must be 0 Hz or more'));
@@ -85,11 +85,12 @@ function PartDetails({ part }: { part: Part }) {
       {def.fields.map((f) => (
         <Field
           key={`${part.id}-${f.key}`}
+          live
           label={f.label}
           unit={f.unit}
           testId={`field-${f.key}`}
-          value={formatEditable(part[f.key] ?? 0, f.unit)}
-          hint={f.key === 'value' ? 'e.g. 4.7m, 4.7 mH, 1/(2*pi*50)' : undefined}
+          value={f.editText ? f.editText(part[f.key] ?? 0) : formatEditable(part[f.key] ?? 0, f.unit)}
+          hint={f.hint ?? (f.key === 'value' ? 'e.g. 4.7m, 4.7 mH, 1/(2*pi*50)' : undefined)}
           apply={async (t) => {
             const r = await quantity(t, f.unit, f.check);
             if ('reason' in r) return r.reason;
@@ -135,6 +136,7 @@ function CouplingDetails({ c }: { c: SheetCoupling }) {
       )}
       <Field
         key={`${c.id}-${c.by}`}
+        live
         label={c.by === 'k' ? 'k (0 to 1)' : 'M'}
         unit={c.by === 'k' ? '' : 'H'}
         testId="field-coupling"

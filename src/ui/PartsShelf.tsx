@@ -8,6 +8,8 @@ export function PartsShelf() {
   const tool = useEditorState((s) => s.tool);
   const ghostKind = useEditorState((s) => s.ghost?.kind);
   const symbols = useEditorState((s) => s.symbols);
+  const amplitudes = useEditorState((s) => s.sheet.amplitudes);
+  const readout = useEditorState((s) => s.readout);
   return (
     <nav className="shelf" aria-label="Tools and parts">
       <h2 className="panel-title">Tools</h2>
@@ -47,10 +49,10 @@ export function PartsShelf() {
         <CommandButton id="pan-down">↓</CommandButton>
         <span />
       </div>
-      <div className="shelf-tools">
-        <CommandButton id="amplitudes" />
-        <CommandButton id="readout">∠ / j</CommandButton>
-        <CommandButton id="symbols">{symbols === 'iec' ? 'IEC' : 'IEEE'} symbols</CommandButton>
+      <div className="shelf-tools wide">
+        <CommandButton id="amplitudes">{amplitudes === 'rms' ? 'Amplitudes: RMS' : 'Amplitudes: peak'}</CommandButton>
+        <CommandButton id="readout">{readout === 'polar' ? 'Phasors: ∠ degrees' : 'Phasors: re + j im'}</CommandButton>
+        <CommandButton id="symbols">{symbols === 'iec' ? 'Symbols: IEC 60617' : 'Symbols: IEEE 315'}</CommandButton>
       </div>
     </nav>
   );

@@ -73,20 +73,19 @@ export function TopBar({ onExample, onSwitch, onForget }: { onExample: (key: str
         <CommandButton id="undo" />
         <CommandButton id="redo" />
         <span className="sep" />
-        <CommandButton id="cut" />
         <CommandButton id="copy" />
         <CommandButton id="paste" />
-        <CommandButton id="select-all" />
         <span className="sep" />
         <CommandButton id="zoom-out">−</CommandButton>
         <CommandButton id="fit" />
         <CommandButton id="zoom-in">+</CommandButton>
         <span className="sep" />
-        <CommandButton id="open" />
-        <CommandButton id="save" />
-        <CommandButton id="save-picture" />
+        <CommandButton id="open">Open</CommandButton>
+        <CommandButton id="save">Save</CommandButton>
+        <CommandButton id="save-picture">SVG</CommandButton>
       </div>
       <SharePanel />
+      <CommandButton id="command-list">Commands</CommandButton>
       <KeysList />
       <div className="sheet-title" title="Sheet title (edit it in Details with nothing selected)">{title}</div>
     </header>

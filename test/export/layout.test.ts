@@ -43,7 +43,7 @@ describe('overlayLayout', () => {
 
   it('phasorText: magnitude with an SI prefix and the angle in degrees', () => {
     expect(phasorText({ re: 0, im: -0.002 }, 'A')).toBe('2 mA ∠-90.0°'); // -j·2 mA lies at -90°
-    expect(phasorText({ re: -230, im: 0 }, 'V')).toBe('230 V ∠-180.0°');
+    expect(phasorText({ re: -230, im: 0 }, 'V')).toBe('230 V ∠180.0°'); // one angle range, (-180°, 180°]
     expect(phasorText({ re: 0, im: 0 }, 'V')).toBe('0 V');
   });
 });

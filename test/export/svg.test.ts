@@ -254,7 +254,7 @@ describe('other circuits', () => {
     // V_s = V_p / ratio = 5 V; I_s = V_s / R = 1 A; I_p = I_s / ratio = 0.5 A (ideal transformer, contract);
     // the secondary current enters its dotted terminal, so it reads 1 A at 180°
     expect(rows.find((x) => x.name === 'T1 primary')!.cells).toMatchObject({ v: '10 V ∠0.0°', i: '500 mA ∠0.0°', p: '0 W' });
-    expect(rows.find((x) => x.name === 'T1 secondary')!.cells).toMatchObject({ v: '5 V ∠0.0°', i: '1 A ∠-180.0°' });
+    expect(rows.find((x) => x.name === 'T1 secondary')!.cells).toMatchObject({ v: '5 V ∠0.0°', i: '1 A ∠180.0°' });
     expect(rows.find((x) => x.name === 'R1')!.cells).toMatchObject({ i: '1 A ∠0.0°', p: '5 W' }); // P = V²/R = 25/5
     // the transformer's own current arrows: one per side
     expect(texts(svg).filter((x) => x === '500 mA ∠0.0°').length).toBeGreaterThanOrEqual(1);

@@ -13,13 +13,27 @@ function coil(x: number, dir: 1 | -1): Prim[] {
   return out;
 }
 
+/**
+ * A turns ratio as the trade writes it: "200 : 1" when the primary has more
+ * turns, "1 : 200" when fewer (so a 1:200 current transformer never reads
+ * "0.005 : 1"), four significant figures.
+ */
+export function ratioText(r: number, sep: string): string {
+  const n = (v: number) => Number(v.toPrecision(4)).toString();
+  if (!(r > 0) || !Number.isFinite(r)) return `${n(r)}${sep}1`;
+  return r >= 1 ? `${n(r)}${sep}1` : `1${sep}${n(1 / r)}`;
+}
+
 export const transformer: PartDef = {
   kind: 'transformer', label: 'Ideal transformer', shelfKey: '6', prefix: 'T',
   icon: { box: { x0: -44, y0: -36, x1: 44, y1: 36 }, stroke: 3 }, labelBelow: true,
   pins: [{ x: -40, y: -30 }, { x: -40, y: 30 }, { x: 40, y: -30 }, { x: 40, y: 30 }],
   box: { x0: -40, y0: -32, x1: 40, y1: 32 }, defaultRot: 0,
   defaults: { value: 1 },
-  fields: [{ key: 'value', label: 'Turns ratio (primary : secondary)', unit: '', check: positive('Turns ratio') }],
+  fields: [{
+    key: 'value', label: 'Turns ratio (primary : secondary)', unit: '', check: positive('Turns ratio'),
+    editText: (v) => ratioText(v, ':'), hint: 'e.g. 1:200, 1000:5, 2.5:1 or a number',
+  }],
   draw: () => [
     { t: 'line', p: [-40, -30, -10, -30, -10, -20] },
     { t: 'line', p: [-40, 30, -10, 30, -10, 20] },
@@ -32,7 +46,7 @@ export const transformer: PartDef = {
     { t: 'circle', x: -19, y: -22, r: 2.5, fill: true },
     { t: 'circle', x: 19, y: -22, r: 2.5, fill: true },
   ],
-  valueText: (p) => `${Number((p.value ?? 1).toPrecision(4))} : 1`,
+  valueText: (p) => ratioText(p.value ?? 1, ' : '),
   toElement: (p, n) => ({ id: p.ref, kind: 'ideal-transformer', nodes: [n[0], n[1], n[2], n[3]], ratio: p.value ?? 1 }),
   fromElement: { kind: 'ideal-transformer', values: (el) => ({ value: (el as IdealTransformerEl).ratio }) },
 };

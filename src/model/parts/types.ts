@@ -30,6 +30,10 @@ export interface FieldDef {
   unit: string;
   /** reason the value is not allowed, or null */
   check: (v: number) => string | null;
+  /** the value as the entry field shows it, when not a plain SI number (a turns ratio "1:200") */
+  editText?: (v: number) => string;
+  /** what the field's hint suggests typing */
+  hint?: string;
 }
 
 export interface PartDef {

@@ -56,7 +56,7 @@ function Inspector({ couplingId }: { couplingId: string }) {
       </dl>
       <div className="pair-fields">
         <Field
-          label="k (coupling coefficient)" value={formatEditable(k, '')} testId="inspector-k"
+          live label="k (coupling coefficient)" value={formatEditable(k, '')} testId="inspector-k"
           hint={`0 to 1; sets M = k·√(L1·L2) = ${formatSI(m, 'H', 4)}`}
           apply={async (t) => {
             const r = await quantity(t, '', kRangeProblem);
@@ -66,7 +66,7 @@ function Inspector({ couplingId }: { couplingId: string }) {
           }}
         />
         <Field
-          label="M (mutual inductance)" unit="H" value={formatEditable(m, 'H')} testId="inspector-m"
+          live label="M (mutual inductance)" unit="H" value={formatEditable(m, 'H')} testId="inspector-m"
           hint={`0 to √(L1·L2) = ${formatSI(mMax, 'H', 4)}; sets k = M/√(L1·L2)`}
           apply={async (t) => {
             const r = await quantity(t, 'H', (v) => mRangeProblem(v, l1, l2));
