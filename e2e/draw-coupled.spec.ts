@@ -29,7 +29,7 @@ test('draw a coupled circuit from nothing and read the load current', async ({ p
   await page.goto('/');
   await expect(page.getByTestId('convention')).toContainText('50 Hz');
   await shot(page, info, '01-demo-on-first-load');
-  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="V1"]')).toBeVisible();
+  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="Vmains"]')).toBeVisible();
 
   // a new empty sheet
   await page.getByTestId('sheet-canvas').click({ position: { x: 5, y: 5 } });

@@ -1,10 +1,10 @@
 /** Draws the sheet itself: grid, wires, junctions, open ends, parts, labels, couplings, selection. */
 import { GRID, type Rect } from '../model/geometry';
-import { couplingGeometry, couplingLabelBox } from '../model/hit';
+import { COUPLING_TEXT, couplingGeometry } from '../model/hit';
 import { PART_DEFS, partBox, partMarks } from '../model/parts/registry';
 import type { SymbolStyle } from '../model/parts/types';
 import type { Sheet } from '../model/sheet';
-import { couplingText, partLabelSpot } from '../model/drawLayout';
+import { partLabelSpot } from '../model/drawLayout';
 import type { Topology } from '../model/topology';
 import type { View } from '../store/types';
 import { drawMarks, drawPrims } from './drawPrims';
@@ -99,16 +99,16 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
     }
     c.stroke();
     c.setLineDash([]);
-    const text = couplingText(cp);
-    const box = couplingLabelBox(g.label);
+    const { text, box } = g;
     c.fillStyle = sel ? '#e8f0fa' : bad ? '#fbeae8' : '#fbf3e4';
     c.fillRect(box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0);
     c.strokeRect(box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0);
     c.fillStyle = bad ? THEME.error : THEME.coupling;
-    c.font = `600 10px ${THEME.font}`;
+    c.font = `600 ${COUPLING_TEXT}px ${THEME.font}`;
     c.textAlign = 'center';
     c.textBaseline = 'middle';
     c.fillText(text, g.label.x, g.label.y);
+    c.textBaseline = 'alphabetic';
   }
 
   // parts

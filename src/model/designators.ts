@@ -1,10 +1,9 @@
-/** Designators: R1, L1, C1, V1, I1, T1 and K1 for couplings; unique on a sheet. */
+/** Designators: R1, L1, C1, V1, I1, T1; unique on a sheet (couplings are named by their windings). */
 import type { Sheet } from './sheet';
 
 export function usedRefs(sheet: Sheet): Set<string> {
   const s = new Set<string>();
   for (const p of sheet.parts) if (p.ref) s.add(p.ref.toUpperCase());
-  for (const c of sheet.couplings) if (c.ref) s.add(c.ref.toUpperCase());
   return s;
 }
 
@@ -25,8 +24,7 @@ export function refProblem(sheet: Sheet, ownerId: string, ref: string): string |
   if (!r) return 'A designator cannot be empty';
   if (!/^[A-Za-z][A-Za-z0-9_]*$/.test(r)) return 'Use a letter followed by letters, digits or _ (like R12)';
   if (r.toLowerCase() === 'gnd') return '"gnd" is the ground node name';
-  const clash = sheet.parts.find((p) => p.id !== ownerId && p.ref.toUpperCase() === r.toUpperCase())
-    ?? sheet.couplings.find((c) => c.id !== ownerId && c.ref.toUpperCase() === r.toUpperCase());
+  const clash = sheet.parts.find((p) => p.id !== ownerId && p.ref.toUpperCase() === r.toUpperCase());
   if (clash) return `${r} is already used on this sheet; designators must be unique`;
   return null;
 }

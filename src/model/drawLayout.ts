@@ -6,11 +6,11 @@
  */
 import type { ComplexJson, ElementResult, SolveResult, TwoTerminalResult } from './graph';
 import { toSheet, type Point, type Rect } from './geometry';
-import { couplingGeometry, couplingLabelBox } from './hit';
+import { couplingGeometry } from './hit';
 import { PART_DEFS, partBox, pinPositions } from './parts/registry';
 import { angleDeg, mag } from './phasor';
 import { formatAngle, formatSI, siScale } from './quantity';
-import type { Part, Sheet, SheetCoupling } from './sheet';
+import type { Part, Sheet } from './sheet';
 import type { DerivedCircuit } from './toGraph';
 import { wireFlows } from './wireFlows';
 
@@ -45,11 +45,6 @@ export function partLabelSpot(part: Part, box: Rect): { x: number; y: number; al
   if (PART_DEFS[part.kind].labelBelow) return { x: (box.x0 + box.x1) / 2, y: box.y1 + 14, align: 'center' };
   if (part.rot % 2 === 1) return { x: box.x1 + 6, y: (box.y0 + box.y1) / 2 - 6, align: 'left' };
   return { x: (box.x0 + box.x1) / 2, y: box.y0 - 14, align: 'center' };
-}
-
-/** The text of a coupling's label: its designator and k or M. */
-export function couplingText(cp: SheetCoupling): string {
-  return `${cp.ref || 'K'}  ${cp.by === 'k' ? `k = ${Number(cp.value.toPrecision(4))}` : `M = ${formatSI(cp.value, 'H', 3)}`}`;
 }
 
 export interface ArrowLayout { from: Point; to: Point; width: number }
@@ -212,7 +207,7 @@ export function declutterTags(sheet: Sheet, layout: OverlayLayout, m: TextMeasur
       hard.push({ x0, y0: spot.y + dy - size * 0.8, x1: x0 + w, y1: spot.y + dy + size * 0.25 });
     }
   }
-  for (const c of sheet.couplings) hard.push(couplingLabelBox(couplingGeometry(sheet, c).label));
+  for (const c of sheet.couplings) hard.push(couplingGeometry(sheet, c).box);
   for (const w of sheet.wires) {
     for (let i = 0; i + 3 < w.pts.length; i += 2) {
       const [x0, y0, x1, y1] = [w.pts[i], w.pts[i + 1], w.pts[i + 2], w.pts[i + 3]];

@@ -150,7 +150,7 @@ export function updateCoupling(sheet: Sheet, id: string, patch: Partial<SheetCou
 
 /** Couple the given windings with coefficient k (one coupling, named K1, K2 …). */
 export function coupleWindings(sheet: Sheet, windingIds: string[], k = 0.9): { sheet: Sheet; coupling: SheetCoupling } {
-  const coupling: SheetCoupling = { id: newId('coupling'), ref: nextRef('K', usedRefs(sheet)), windings: windingIds, by: 'k', value: k };
+  const coupling: SheetCoupling = { id: newId('coupling'), windings: windingIds, by: 'k', value: k };
   return { sheet: { ...sheet, couplings: [...sheet.couplings, coupling] }, coupling };
 }
 

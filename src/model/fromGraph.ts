@@ -6,7 +6,7 @@
 import type { GraphElement, GraphModel } from './graph';
 import { newId } from './ids';
 import { PART_DEFS, PART_OF_ELEMENT, pinPositions } from './parts/registry';
-import { SHEET_SCHEMA, type Part, type Sheet } from './sheet';
+import { emptySheet, type Part, type Sheet } from './sheet';
 
 
 export function graphToSheet(model: GraphModel, title = 'Imported graph model'): Sheet {
@@ -38,10 +38,9 @@ export function graphToSheet(model: GraphModel, title = 'Imported graph model'):
   }
   const couplings = (model.couplings ?? []).map((c) => ({
     id: newId('coupling'),
-    ref: c.id,
     windings: c.windings.map((w) => idOf.get(w) ?? w),
     by: (c.henries !== undefined && c.k === undefined ? 'M' : 'k') as 'k' | 'M',
     value: c.henries !== undefined && c.k === undefined ? c.henries : (c.k ?? 0),
   }));
-  return { schema: SHEET_SCHEMA, title, frequencyHz: model.frequencyHz, amplitudes: model.amplitudes, parts, wires, couplings };
+  return { ...emptySheet(title), frequencyHz: model.frequencyHz, amplitudes: model.amplitudes, parts, wires, couplings };
 }

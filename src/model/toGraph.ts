@@ -1,5 +1,6 @@
 /** Sheet → graph model, keeping the links the overlays need (element → part, node → anchor). */
 import { GRAPH_SCHEMA, type Coupling, type GraphElement, type GraphModel } from './graph';
+import { couplingGraphId } from './couplingName';
 import { PART_DEFS, isSource } from './parts/registry';
 import type { Sheet } from './sheet';
 import { deriveTopology, type Topology } from './topology';
@@ -33,7 +34,7 @@ export function deriveCircuit(sheet: Sheet): DerivedCircuit {
   const couplings: Coupling[] = [];
   const couplingOfId = new Map<string, string>();
   for (const c of sheet.couplings) {
-    const id = c.ref || c.id;
+    const id = couplingGraphId(sheet, c);
     const windings = c.windings.map((w) => refOfPart.get(w) ?? w);
     couplings.push(c.by === 'M' ? { id, windings, henries: c.value } : { id, windings, k: c.value });
     couplingOfId.set(id, c.id);

@@ -99,8 +99,7 @@ export function renamePart(store: EditorStore, partId: string, ref: string): str
   const s = store.getState();
   const problem = refProblem(s.sheet, partId, ref);
   if (problem) return problem;
-  const isCoupling = s.sheet.couplings.some((c) => c.id === partId);
-  commit(store, isCoupling ? E.updateCoupling(s.sheet, partId, { ref: ref.trim() }) : E.updatePart(s.sheet, partId, { ref: ref.trim() }));
+  commit(store, E.updatePart(s.sheet, partId, { ref: ref.trim() }));
   return null;
 }
 

@@ -1,5 +1,6 @@
 /** The details panel: edits the selected part or coupling, or the sheet when nothing is selected. */
 import { formatEditable } from '../model/quantity';
+import { couplingName } from '../model/couplingName';
 import { PART_DEFS, isCouplable } from '../model/parts/registry';
 import * as E from '../model/edits';
 import type { Part, SheetCoupling } from '../model/sheet';
@@ -125,8 +126,7 @@ function CouplingDetails({ c }: { c: SheetCoupling }) {
   const two = c.windings.length === 2;
   return (
     <div className="form" data-testid="coupling-details">
-      <p className="kind">Magnetic link between {names.join(', ')}</p>
-      <Field label="Designator" value={c.ref} testId="field-ref" apply={(t) => renamePart(store, c.id, t)} />
+      <p className="kind" data-testid="coupling-name">Coupling {couplingName(sheet, c, 'k')} / {couplingName(sheet, c, 'M')} between {names.join(' and ')}</p>
       {two && (
         <fieldset className="radio">
           <legend>Given as</legend>
@@ -137,7 +137,7 @@ function CouplingDetails({ c }: { c: SheetCoupling }) {
       <Field
         key={`${c.id}-${c.by}`}
         live
-        label={c.by === 'k' ? 'k (0 to 1)' : 'M'}
+        label={c.by === 'k' ? `${couplingName(sheet, c, 'k')}, coupling coefficient (0 to 1)` : `${couplingName(sheet, c, 'M')}, mutual inductance`}
         unit={c.by === 'k' ? '' : 'H'}
         testId="field-coupling"
         value={formatEditable(c.value, c.by === 'k' ? '' : 'H')}

@@ -63,10 +63,10 @@ describe('coilwright svg', () => {
     const file = join(sheets, 'isolation-transformer-230v.json');
     const solved = JSON.parse(run(['solve', file]).stdout);
     const rows = tableRows(run(['svg', file]).stdout);
-    const r3 = solved.elements.R3;
+    const r3 = solved.elements.Rload;
     const m = Math.hypot(r3.current.re, r3.current.im);
-    // |I(R3)| from solve, to the four figures the sheet prints
-    expect(rows.find((r) => r.name === 'R3')!.cells.i.startsWith(`${Number(m.toPrecision(4))} A ∠`)).toBe(true);
+    // |I(Rload)| from solve, to the four figures the sheet prints
+    expect(rows.find((r) => r.name === 'Rload')!.cells.i.startsWith(`${Number(m.toPrecision(4))} A ∠`)).toBe(true);
   });
 
   it('lays out a graph model file, its own ground the reference', () => {
@@ -102,13 +102,13 @@ describe('coilwright svg', () => {
 
   it('refuses a sheet whose model is refused, naming the element, as solve does', () => {
     const s = JSON.parse(readFileSync(join(sheets, 'isolation-transformer-230v.json'), 'utf8'));
-    s.parts.find((p: { ref: string }) => p.ref === 'R3').value = 0;
+    s.parts.find((p: { ref: string }) => p.ref === 'Rload').value = 0;
     const file = fileWith(JSON.stringify(s));
     const svg = run(['svg', file]);
     const solve = run(['solve', file]);
     expect(svg.status).toBe(1);
     expect(svg.stdout).toBe('');
-    expect(svg.stderr).toMatch(/"R3".*ohms must be greater than 0/); // zero resistance is refused (contract)
+    expect(svg.stderr).toMatch(/"Rload".*ohms must be greater than 0/); // zero resistance is refused (contract)
     expect(svg.stderr).toBe(solve.stderr);
   });
 });

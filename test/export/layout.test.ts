@@ -21,7 +21,7 @@ describe('overlayLayout', () => {
     const layout = overlayLayout(sheet, circuit, result, { noWireFlows: true });
     // seven parts carry current; none is left out
     expect(layout.arrows).toHaveLength(7);
-    const r1 = sheet.parts.find((p) => p.ref === 'R1')!;
+    const r1 = sheet.parts.find((p) => p.ref === 'Rp')!;
     const [a, b] = pinPositions(r1);
     const arrow = layout.arrows.find((x) => Math.abs((x.from.x + x.to.x) / 2 - (a.x + b.x) / 2) < 1 && x.from.y > a.y)!;
     expect(Math.sign(arrow.to.x - arrow.from.x)).toBe(Math.sign(b.x - a.x));

@@ -111,11 +111,11 @@ describe('sheetToSvg on the example sheets', () => {
     const result = solved(sheet);
     const svg = sheetToSvg(sheet, result, OPTS);
     expect(svg.match(/class="polarity-dot"/g)).toHaveLength(2); // two coupled windings, one dot each
-    expect(texts(svg)).toContain('K1  k = 0.995'); // the example's coupling coefficient
-    // three junctions in the example's wiring: ground corner, and both ends of the R3 ‖ C1 pair
+    expect(texts(svg)).toContain('k(Lp,Ls) = 0.998'); // the example's coupling coefficient, named by its windings Lp and Ls
+    // three junctions in the example's wiring: the ground corner, and both ends of the Rcore ‖ Lp pair
     expect(/<g id="junctions"[^>]*>([\s\S]*?)<\/g>/.exec(svg)![1].match(/<circle/g)).toHaveLength(3);
-    // the load current tag reads the solver's R3 current
-    const r3 = result.elements.R3 as { current: ComplexJson };
+    // the load current tag reads the solver's Rload current
+    const r3 = result.elements.Rload as { current: ComplexJson };
     expect(texts(svg)).toContain(polar(r3.current, 'A'));
     expect(texts(svg)).toContain(`n1: ${polar(result.nodes.n1, 'V')}`); // 230 V source node tag
     expect(svg).toMatch(/<g id="current-arrows"[^>]*>\s*<line /);
@@ -203,16 +203,16 @@ describe('results, conventions and cautions', () => {
     const sheet = EXAMPLES.find((e) => e.key === 'isolation')!.make();
     const svg = sheetToSvg(sheet, null, {
       ...OPTS,
-      unsolvedReason: 'coupling "K1": k = 1.2 must be between 0 and 1',
-      culprits: [{ kind: 'element', id: 'R3' }, { kind: 'coupling', id: 'K1' }, { kind: 'node', id: 'n5' }],
+      unsolvedReason: 'coupling "Lp~Ls": k = 1.2 must be between 0 and 1',
+      culprits: [{ kind: 'element', id: 'Rload' }, { kind: 'coupling', id: 'Lp~Ls' }, { kind: 'node', id: 'n5' }],
     });
     expect(xmlProblem(svg)).toBeNull();
     const marks = /<g id="culprits"[^>]*>([\s\S]*?)<\/g>/.exec(svg)![1];
-    expect(marks.match(/<rect class="culprit"/g)).toHaveLength(1); // R3
+    expect(marks.match(/<rect class="culprit"/g)).toHaveLength(1); // Rload
     expect(marks.match(/<circle class="culprit"/g)).toHaveLength(1); // node n5
     expect(svg).toMatch(/class="coupling culprit"/);
-    expect(svg).toMatch(/fill="#b42318"[^>]*class="ref">R3</);
-    expect(svg).not.toMatch(/fill="#b42318"[^>]*class="ref">R1</);
+    expect(svg).toMatch(/fill="#b42318"[^>]*class="ref">Rload</);
+    expect(svg).not.toMatch(/fill="#b42318"[^>]*class="ref">Rp</);
   });
 
   it('takes plots as SVG fragments and refuses unsafe or broken ones', () => {

@@ -51,6 +51,6 @@ describe('keyboard-only editing', () => {
     tools.startPlacing('capacitor');
     expect(tools.key(key('Enter'))).toBe(true);
     const dropped = store.getState().sheet.parts.at(-1)!;
-    expect([dropped.ref, dropped.x, dropped.y]).toEqual(['C2', 200, 150]); // the middle of a 400 × 300 view
+    expect([dropped.ref, dropped.x, dropped.y]).toEqual(['C1', 200, 150]); // the middle of a 400 × 300 view, where it is free
   });
 });

@@ -58,7 +58,8 @@ export const arm: PartDef = {
     { t: 'line', p: [20, 0, 30, 0] },
     { t: 'rect', x: -23, y: -10, w: 46, h: 14 },
   ],
-  valueText: (p) => `${formatSI(p.value ?? 0, 'H', 3)} (equivalent)`,
+  // the precision of the tables: an arm of 11.96 H reads 11.96 H, not 12 H
+  valueText: (p) => `${formatSI(p.value ?? 0, 'H', 4)} (equivalent)`,
   toElement: (p, n) => ({ id: p.ref, kind: 'inductance-arm', nodes: [n[0], n[1]], henries: p.value ?? 0 }),
   fromElement: { kind: 'inductance-arm', values: (el) => ({ value: (el as InductanceArmEl).henries }) },
 };

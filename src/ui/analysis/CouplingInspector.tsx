@@ -4,6 +4,7 @@ import type { InspectAnswer } from '../../model/analysisMessages';
 import * as E from '../../model/edits';
 import { formatEditable, formatSI } from '../../model/quantity';
 import { commit } from '../../store/actions';
+import { couplingTitle } from '../../model/couplingName';
 import { useEditor, useEditorState } from '../editorContext';
 import { Field, quantity } from '../Field';
 import { analysisClient } from './client';
@@ -45,11 +46,11 @@ function Inspector({ couplingId }: { couplingId: string }) {
   }, [solved?.result, gid]);
 
   const patch = (by: 'k' | 'M', value: number) => commit(store, E.updateCoupling(store.getState().sheet, couplingId, { by, value }));
-  if (!two) return <section className="panel inspector" aria-label="Coupling inspector"><p className="muted">{c.ref} links {windings.length} windings; the inspector reads pairs.</p></section>;
+  if (!two) return <section className="panel inspector" aria-label="Coupling inspector"><p className="muted">{couplingTitle(sheet, c)} couples {windings.length} windings; the inspector reads pairs.</p></section>;
   const unit = answer?.amplitudes === 'peak' ? 'peak' : 'RMS';
   return (
     <section className="panel inspector" aria-label="Coupling inspector" data-testid="coupling-inspector">
-      <h2 className="panel-title">Coupling inspector · {c.ref}</h2>
+      <h2 className="panel-title">Coupling inspector · {couplingTitle(sheet, c)}</h2>
       <dl className="kv">
         <dt>L1 ({windings[0].ref})</dt><dd>{formatSI(l1, 'H', 4)}</dd>
         <dt>L2 ({windings[1].ref})</dt><dd>{formatSI(l2, 'H', 4)}</dd>

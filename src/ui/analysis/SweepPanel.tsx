@@ -45,7 +45,7 @@ function namesIn(model: GraphModel, q: SweepQuantity): boolean {
 function sliderTargets(model: GraphModel): (SliderTarget & { value: number })[] {
   const out: (SliderTarget & { value: number })[] = [];
   for (const c of model.couplings ?? []) {
-    if (c.k !== undefined) out.push({ kind: 'coupling', id: c.id, label: `k of ${c.id}`, min: 0, max: 1, log: false, unit: '', value: c.k });
+    if (c.k !== undefined) out.push({ kind: 'coupling', id: c.id, label: `k of ${c.windings.join('–')}`, min: 0, max: 1, log: false, unit: '', value: c.k });
   }
   for (const e of model.elements) {
     if (e.kind === 'capacitor') out.push({ kind: 'part', id: e.id, label: `${e.id} capacitance`, min: e.farads / 10, max: e.farads * 10, log: true, unit: 'F', value: e.farads });
