@@ -10,7 +10,7 @@ import { couplingGeometry } from './hit';
 import { PART_DEFS, partBox, pinPositions } from './parts/registry';
 import { angleDeg, mag } from './phasor';
 import { formatAngle, formatSI, siScale } from './quantity';
-import type { Part, Sheet } from './sheet';
+import { defaultDisplay, type Part, type Sheet } from './sheet';
 import type { DerivedCircuit } from './toGraph';
 import { wireFlows } from './wireFlows';
 
@@ -84,6 +84,7 @@ export function currentWeight(m: number, maxI: number): number {
 export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: SolveResult, o: OverlayLayoutOptions = {}): OverlayLayout {
   const arrows: ArrowLayout[] = [];
   const tags: TagLayout[] = [];
+  const display = sheet.display ?? defaultDisplay();
   const partsById = new Map<string, Part>();
   for (const p of sheet.parts) partsById.set(p.id, p);
   let maxI = 0;
@@ -100,6 +101,8 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
     const partId = circuit.partOfElement.get(id);
     const part = partId ? partsById.get(partId) : undefined;
     if (!part || o.hidden?.has(part.id)) continue;
+    // what the sheet's display settings leave out
+    if (!display.partCurrents || display.hideKinds.includes(part.kind) || display.hideParts.includes(part.id)) continue;
     const r = result.elements[id];
     if (isTwo(r)) {
       const m = mag(r.current);
@@ -127,7 +130,7 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
     }
   }
 
-  if (!o.noWireFlows) {
+  if (!o.noWireFlows && display.wireCurrents) {
     const elementOfPart = new Map<string, string>();
     for (const [el, part] of circuit.partOfElement) elementOfPart.set(part, el);
     for (const f of wireFlows(sheet, result, elementOfPart)) {
@@ -142,7 +145,7 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
   const anchors = circuit.topology.anchors;
   const crowded = anchors.size > (o.crowdedAbove ?? 60);
   for (const name in result.nodes) {
-    if (name === circuit.model.ground) continue;
+    if (name === circuit.model.ground || !display.nodeVoltages) continue;
     if (crowded && name !== o.focusNode) continue;
     const at = anchors.get(name);
     if (!at) continue;

@@ -3,7 +3,7 @@ import { formatEditable } from '../model/quantity';
 import { couplingName } from '../model/couplingName';
 import { PART_DEFS, isCouplable } from '../model/parts/registry';
 import * as E from '../model/edits';
-import type { Part, SheetCoupling } from '../model/sheet';
+import { PART_KINDS, TITLE_FIELDS, type DisplaySettings, type Part, type SheetCoupling } from '../model/sheet';
 import { commit, renamePart } from '../store/actions';
 import { CommandButton } from './CommandButton';
 import { Field, quantity } from './Field';
@@ -45,6 +45,14 @@ function SheetDetails() {
           return null;
         }}
       />
+      <details className="tb-fields" data-testid="title-block-fields">
+        <summary>Title block (ISO 7200 fields)</summary>
+        {TITLE_FIELDS.map((f) => (
+          <Field key={f.key} label={f.label} value={sheet.titleBlock[f.key]} testId={`tb-${f.key}`}
+            apply={(t) => (t.length > 200 ? 'Keep it under 200 characters' : (set({ titleBlock: { ...store.getState().sheet.titleBlock, [f.key]: t.trim() } }), null))} />
+        ))}
+      </details>
+      <DisplayFields />
       <fieldset className="radio">
         <legend>Amplitudes</legend>
         {(['rms', 'peak'] as const).map((a) => (
@@ -54,6 +62,35 @@ function SheetDetails() {
         ))}
       </fieldset>
     </div>
+  );
+}
+
+/** What the drawing shows: readings by kind, and the part kinds whose readings are left out. */
+function DisplayFields() {
+  const { store } = useEditor();
+  const display = useEditorState((s) => s.sheet.display);
+  const set = (patch: Partial<DisplaySettings>) => {
+    const s = store.getState().sheet;
+    commit(store, { ...s, display: { ...s.display, ...patch } });
+  };
+  const kinds = PART_KINDS.filter((k) => PART_DEFS[k].toElement);
+  return (
+    <details className="tb-fields" data-testid="display-fields">
+      <summary>What the drawing shows</summary>
+      <fieldset className="radio">
+        <legend>Readings</legend>
+        <label><input type="checkbox" data-testid="show-part-currents" checked={display.partCurrents} onChange={(e) => set({ partCurrents: e.target.checked })} /> currents beside parts</label>
+        <label><input type="checkbox" data-testid="show-wire-currents" checked={display.wireCurrents} onChange={(e) => set({ wireCurrents: e.target.checked })} /> currents on wires</label>
+        <label><input type="checkbox" data-testid="show-node-voltages" checked={display.nodeVoltages} onChange={(e) => set({ nodeVoltages: e.target.checked })} /> node voltages</label>
+      </fieldset>
+      <fieldset className="radio">
+        <legend>Readings of these kinds</legend>
+        {kinds.map((k) => (
+          <label key={k}><input type="checkbox" data-testid={`show-kind-${k}`} checked={!display.hideKinds.includes(k)}
+            onChange={(e) => set({ hideKinds: e.target.checked ? display.hideKinds.filter((x) => x !== k) : [...display.hideKinds, k] })} /> {PART_DEFS[k].label}</label>
+        ))}
+      </fieldset>
+    </details>
   );
 }
 
@@ -74,6 +111,7 @@ function Several({ count, windings }: { count: number; windings: number }) {
 function PartDetails({ part }: { part: Part }) {
   const { store } = useEditor();
   const def = PART_DEFS[part.kind];
+  const sheetDisplay = useEditorState((s) => s.sheet.display);
   const patch = (p: Partial<Part>) => commit(store, E.updatePart(store.getState().sheet, part.id, p));
   return (
     <div className="form" data-testid="part-details">
@@ -108,6 +146,10 @@ function PartDetails({ part }: { part: Part }) {
             <CommandButton id="swap-dot" />
           </div>
         </div>
+      )}
+      {def.toElement && (
+        <label className="check"><input type="checkbox" data-testid="show-part-readings" checked={!sheetDisplay.hideParts.includes(part.id)}
+          onChange={(e) => commit(store, { ...store.getState().sheet, display: { ...sheetDisplay, hideParts: e.target.checked ? sheetDisplay.hideParts.filter((x) => x !== part.id) : [...sheetDisplay.hideParts, part.id] } })} /> show this part's readings on the drawing</label>
       )}
       <div className="row-buttons">
         <CommandButton id="turn" />

@@ -174,12 +174,31 @@ describe('results, conventions and cautions', () => {
     const sheet = EXAMPLES.find((e) => e.key === 'wireless')!.make();
     const svg = sheetToSvg(sheet, solved(sheet), { ...OPTS, notes: 'Pad gap 150 mm.' });
     const tb = texts(svg.slice(svg.indexOf('<g id="title-block">'))).join(' | ');
-    expect(tb).toContain('Wireless charging pair, series-series');
+    expect(tb.replace(' | ', ' ')).toContain('Wireless charging pair, series-series');
     expect(tb).toContain('2026-12-01');
+    // the ISO 7200 data fields are all there, by name (empty ones as a dash)
+    for (const name of ['Document number', 'Revision', 'Sheet', 'Date of issue', 'Status', 'Owner', 'Drawn by', 'Checked by', 'Approved by']) expect(tb).toContain(name);
     expect(tb).toContain('85 kHz'); // the example's 85 kHz (field notes: vehicle wireless charging)
     expect(tb).toContain('RMS phasors; S = V·I*');
     expect(tb).toContain('Pad gap 150 mm.');
     expect(tb).toContain('Coilwright 0.1.0');
+  });
+
+  it('prints the title block and the cautions at 2.5 mm or more (the usual minimum for drawings, common practice), and the couplings with M, k and the turns ratio', () => {
+    seedIds(3);
+    const sheet = EXAMPLES.find((e) => e.key === 'isolation')!.make();
+    sheet.titleBlock = { ...sheet.titleBlock, number: 'CW-0042', revision: 'B', drawnBy: 'A. Engineer', checkedBy: 'B. Checker' };
+    const svg = sheetToSvg(sheet, solved(sheet), OPTS);
+    for (const id of ['title-block', 'cautions']) {
+      const block = /<g id="ID">([\s\S]*?)<\/g>/.exec(svg.replace('ID', ''))?.[1] ?? svg.slice(svg.indexOf(`<g id="${id}">`), svg.indexOf('</g>', svg.indexOf(`<g id="${id}">`)));
+      const sizes = [...block.matchAll(/font-size="([\d.]+)"/g)].map((m) => Number(m[1]));
+      expect(sizes.length).toBeGreaterThan(3);
+      expect(Math.min(...sizes), id).toBeGreaterThanOrEqual(2.5);
+    }
+    const tb = texts(svg.slice(svg.indexOf('<g id="title-block">')));
+    for (const v of ['CW-0042', 'B', 'A. Engineer', 'B. Checker']) expect(tb).toContain(v);
+    // k = 0.998 of two 3.2 H windings: M = 0.998 · 3.2 H = 3.194 H, turns ratio √(3.2/3.2) = 1 : 1 (field notes, M = k·√(L1·L2))
+    expect(texts(svg)).toContain('k(Lp,Ls): Lp = 3.2 H, Ls = 3.2 H, M(Lp,Ls) = 3.194 H, k(Lp,Ls) = 0.998, effective turns ratio √(Lp/Ls) = 1 : 1');
   });
 
   it('Letter paper is 279.4 mm × 215.9 mm landscape (8.5 in × 11 in), less 10.5 mm print margins', () => {
