@@ -12,6 +12,7 @@ import { App } from './ui/App';
 import { worldToScreen } from './store/actions';
 import { pinPositions } from './model/parts/registry';
 import { overlayProbe, sheetProbe } from './store/probe';
+import { drawnTags } from './canvas/drawOverlay';
 import './ui/app.css';
 
 const storage = window.localStorage;
@@ -35,6 +36,13 @@ const tools = new ToolController(store);
   overlay: overlayProbe,
   sheetDraws: sheetProbe,
   toScreen: (x: number, y: number) => worldToScreen(store.getState().view, x, y),
+  /** the reading tags last drawn on the canvas, as boxes in sheet units */
+  tags: () => drawnTags.boxes,
+  /** a part's pin in sheet units */
+  pin: (ref: string, pin: number) => {
+    const p = store.getState().sheet.parts.find((q) => q.ref === ref);
+    return p ? pinPositions(p)[pin] : null;
+  },
   pinOnScreen: (ref: string, pin: number) => {
     const p = store.getState().sheet.parts.find((q) => q.ref === ref);
     if (!p) return null;

@@ -148,10 +148,10 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
     if (detail && def.prefix) {
       const spot = partLabelSpot(p, box);
       c.textAlign = spot.align;
-      c.font = `600 11px ${THEME.font}`;
+      c.font = `600 12px ${THEME.font}`;
       c.fillStyle = bad ? THEME.error : THEME.label;
       c.fillText(p.ref, spot.x, spot.y);
-      c.font = `10px ${THEME.font}`;
+      c.font = `11px ${THEME.font}`;
       c.fillStyle = THEME.value;
       c.fillText(def.valueText(p), spot.x, spot.y + 12);
     }

@@ -63,9 +63,9 @@ export function AnalysisDock() {
         onPointerMove={(e) => drag.current && set(drag.current.h + drag.current.y - e.clientY)}
         onPointerUp={() => { drag.current = null; }}
         onKeyDown={(e) => {
-          if (e.key === 'ArrowUp') { e.preventDefault(); set(shown() + 24); }
-          if (e.key === 'ArrowDown') { e.preventDefault(); set(shown() - 24); }
-          e.stopPropagation();
+          // the arrows size the dock (and do not move the view); Escape still closes it
+          if (e.key === 'ArrowUp') { e.preventDefault(); e.stopPropagation(); set(shown() + 24); }
+          if (e.key === 'ArrowDown') { e.preventDefault(); e.stopPropagation(); set(shown() - 24); }
         }}
       />
       <div className="dock-head">
