@@ -6,19 +6,19 @@ async function openWireless(page: Page) {
   await page.getByRole('button', { name: /Sheets/ }).click();
   await page.locator('[data-example="wireless"]').click();
   await expect(page.getByTestId('convention')).toContainText('85 kHz');
-  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="R3"]')).toBeVisible();
+  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="Rbat"]')).toBeVisible();
 }
 
 test('sweep finds the resonance of the 85 kHz pair within 1 % of 1/(2π√(LC))', async ({ page }, info) => {
   await openWireless(page);
   const { L, C } = await page.evaluate(() => {
     const parts = (window as any).__coilwright.state().sheet.parts;
-    return { L: parts.find((p: any) => p.ref === 'L1').value, C: parts.find((p: any) => p.ref === 'C1').value };
+    return { L: parts.find((p: any) => p.ref === 'Lpad').value, C: parts.find((p: any) => p.ref === 'Cp').value };
   });
   const f0 = 1 / (2 * Math.PI * Math.sqrt(L * C)); // series resonance (field notes)
-  await page.getByRole('button', { name: /^Frequency sweep/ }).click();
-  await expect(page.getByTestId('sweep-trace')).toHaveCount(1); // Z seen by V1, offered first
-  await page.getByTestId('sweep-quantity').selectOption({ label: 'I(R3) current' });
+  await page.getByRole('button', { name: /^Sweep/ }).click();
+  await expect(page.getByTestId('sweep-trace')).toHaveCount(1); // Z seen by Vinv, offered first
+  await page.getByTestId('sweep-quantity').selectOption({ label: 'I(Rbat) current' });
   await page.getByTestId('sweep-add').click();
   await expect(page.getByTestId('sweep-trace')).toHaveCount(2);
   await page.getByTestId('sweep-run').click();
@@ -32,7 +32,7 @@ test('sweep finds the resonance of the 85 kHz pair within 1 % of 1/(2π√(LC))'
   const box = (await plot.boundingBox())!;
   await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
   await expect(page.getByTestId('sweep-readout')).toContainText('Hz');
-  await expect(page.getByTestId('sweep-readout')).toContainText('Z seen by V1');
+  await expect(page.getByTestId('sweep-readout')).toContainText('Z seen by Vinv');
   await shot(page, info, 'sweep');
   // CSV export
   const download = page.waitForEvent('download');
@@ -46,7 +46,7 @@ test('a long sweep shows progress and can be cancelled', async ({ page }) => {
   await openWireless(page);
   // the sweep waits after its first chunk until it is cancelled: it cannot finish before the click, however fast the machine
   await page.evaluate(() => (window as any).__coilwright.test.holdSweeps(true));
-  await page.getByRole('button', { name: /^Frequency sweep/ }).click();
+  await page.getByRole('button', { name: /^Sweep/ }).click();
   await page.getByTestId('sweep-points').fill('100000');
   await page.getByTestId('sweep-run').click();
   await expect(page.getByTestId('sweep-status')).toHaveAttribute('data-status', 'running');
@@ -58,12 +58,12 @@ test('a long sweep shows progress and can be cancelled', async ({ page }) => {
 
 test('dragging the k slider moves the plot (frequency splitting)', async ({ page }, info) => {
   await openWireless(page);
-  await page.getByRole('button', { name: /^Frequency sweep/ }).click();
-  await page.getByTestId('sweep-quantity').selectOption({ label: 'I(R3) current' });
+  await page.getByRole('button', { name: /^Sweep/ }).click();
+  await page.getByTestId('sweep-quantity').selectOption({ label: 'I(Rbat) current' });
   await page.getByTestId('sweep-add').click();
   await page.getByTestId('sweep-run').click();
   await expect(page.getByTestId('sweep-status')).toHaveAttribute('data-status', 'done');
-  await page.getByTestId('slider-target').selectOption({ label: 'k of K1' });
+  await page.getByTestId('slider-target').selectOption({ label: 'k of Lpad–Lveh' });
   const path = page.getByTestId('plot-magnitude').locator('path').first();
   const before = await path.getAttribute('d');
   const peaksBefore = await page.locator('[data-testid="sweep-markers"] li[data-kind="peak"]').count();

@@ -5,7 +5,7 @@ test('power balance and phasor views of the wireless pair', async ({ page }, inf
   await page.goto('/');
   await page.getByRole('button', { name: /Sheets/ }).click();
   await page.locator('[data-example="wireless"]').click();
-  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="R3"]')).toBeVisible();
+  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="Rbat"]')).toBeVisible();
 
   await page.getByRole('button', { name: /^Power balance/ }).click();
   await expect(page.getByTestId('power-panel')).toBeVisible();
@@ -23,8 +23,8 @@ test('power balance and phasor views of the wireless pair', async ({ page }, inf
   await page.getByRole('button', { name: /^Phasors/ }).click();
   const diagram = page.getByTestId('phasor-diagram');
   await expect(diagram).toBeVisible();
-  await expect(diagram.locator('g[data-label]')).toHaveCount(4); // V and I of L1 and L2
-  await expect(page.getByTestId('phasor-legend')).toContainText('V(L1)');
+  await expect(diagram.locator('g[data-label]')).toHaveCount(4); // V and I of Lpad and Lveh
+  await expect(page.getByTestId('phasor-legend')).toContainText('V(Lpad)');
   await expect(page.getByTestId('waveforms').locator('path')).toHaveCount(4);
   await shot(page, info, 'phasors');
 });

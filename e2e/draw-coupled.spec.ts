@@ -29,7 +29,7 @@ test('draw a coupled circuit from nothing and read the load current', async ({ p
   await page.goto('/');
   await expect(page.getByTestId('convention')).toContainText('50 Hz');
   await shot(page, info, '01-demo-on-first-load');
-  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="V1"]')).toBeVisible();
+  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="Vmains"]')).toBeVisible();
 
   // a new empty sheet
   await page.getByTestId('sheet-canvas').click({ position: { x: 5, y: 5 } });
@@ -41,18 +41,18 @@ test('draw a coupled circuit from nothing and read the load current', async ({ p
   await page.keyboard.press('1'); await clickSheet(page, 200, 170); // R1: pins (170,170), (230,170)
   await page.keyboard.press('2'); await clickSheet(page, 300, 200); // L1: pins (300,170), (300,230)
   await page.keyboard.press('2'); await clickSheet(page, 450, 200); // L2: pins (450,170), (450,230)
-  await page.keyboard.press('1'); await page.keyboard.press('r'); await clickSheet(page, 550, 200); // R2 standing
+  await page.keyboard.press('1'); await page.keyboard.press('.'); await clickSheet(page, 550, 200); // R2 standing
   await page.keyboard.press('7'); await clickSheet(page, 100, 300); // ground
 
   // wires
-  await page.keyboard.press('w');
+  await page.keyboard.press('j');
   await clickSheet(page, 100, 170); await clickSheet(page, 170, 170);
   await clickSheet(page, 230, 170); await clickSheet(page, 300, 170);
   await clickSheet(page, 100, 230); await clickSheet(page, 100, 300);
   await clickSheet(page, 300, 230); await clickSheet(page, 300, 300); await clickSheet(page, 100, 300);
   await clickSheet(page, 450, 170); await clickSheet(page, 550, 170);
   await clickSheet(page, 450, 230); await clickSheet(page, 450, 300); await clickSheet(page, 550, 300); await clickSheet(page, 550, 230);
-  await page.keyboard.press('v');
+  await page.keyboard.press('p');
   await shot(page, info, '02-drawn');
 
   // values
@@ -75,7 +75,7 @@ test('draw a coupled circuit from nothing and read the load current', async ({ p
   // couple the windings: pick L1, shift-pick L2, link
   await clickSheet(page, 300, 200);
   await clickSheet(page, 450, 200, ['Shift']);
-  await page.keyboard.press('k');
+  await page.keyboard.press('c');
   await page.getByTestId('field-coupling').fill('0.8');
   await page.getByTestId('field-coupling').press('Enter');
 
@@ -119,7 +119,7 @@ test('draw a coupled circuit from nothing and read the load current', async ({ p
   await clickSheet(page, 200, 170);
   await page.getByTestId('field-value').fill('fifty ohms');
   await page.getByTestId('field-value').press('Enter');
-  await expect(page.locator('.field-error')).toContainText('not a number or expression');
+  await expect(page.locator('.field-error')).toContainText('"fifty" is not a known name');
   await expect(page.locator('.field-error')).toContainText('still 50');
   await page.getByTestId('field-value').fill('-5');
   await page.getByTestId('field-value').press('Enter');

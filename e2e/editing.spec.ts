@@ -40,10 +40,10 @@ test('place, select, turn, mirror, copy, paste, remove, wire onto a wire, pan an
   await clickSheet(page, 300, 100, ['Shift']);
   expect((await state(page)).selection).toBe(3);
 
-  // turn and mirror by key
-  await page.keyboard.press('r');
+  // turn and flip by key
+  await page.keyboard.press('.');
   expect((await state(page)).parts.every((p) => p.rot === 1)).toBe(true);
-  await page.keyboard.press('m');
+  await page.keyboard.press('f');
   expect((await state(page)).parts.every((p) => p.mirror)).toBe(true);
   await page.keyboard.press('Control+z');
   await page.keyboard.press('Control+z');
@@ -57,14 +57,14 @@ test('place, select, turn, mirror, copy, paste, remove, wire onto a wire, pan an
   expect((await state(page)).parts).toHaveLength(3);
 
   // a wire from R1's right pin to R2's left pin, and a second wire from R3's right pin onto the middle of the first: a junction mark
-  await page.keyboard.press('w');
+  await page.keyboard.press('j');
   await clickSheet(page, 130, 100);
   await clickSheet(page, 170, 100);
   await clickSheet(page, 330, 100);
   await clickSheet(page, 330, 160);
   await clickSheet(page, 150, 160);
   await clickSheet(page, 150, 100);
-  await page.keyboard.press('v');
+  await page.keyboard.press('p');
   const s = await state(page);
   expect(s.wires).toBe(2);
   expect(s.junctions).toBe(1);

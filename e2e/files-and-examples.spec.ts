@@ -16,13 +16,13 @@ test('examples are one click away; graph models open; foreign and newer files ar
   await page.getByRole('button', { name: /Sheets/ }).click();
   await page.locator('[data-example="wireless"]').click();
   await expect(page.getByTestId('convention')).toContainText('85 kHz');
-  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="R3"]')).toBeVisible();
+  await expect(page.locator('[data-testid="readings-parts"] tr[data-name="Rbat"]')).toBeVisible();
   await shot(page, info, 'wireless-example');
 
   await page.getByRole('button', { name: /Sheets/ }).click();
   await page.locator('[data-example="current-transformer"]').click();
-  // 100 A through one turn, 100 turns on the secondary: about 1 A in the burden (turns ratio, from memory)
-  await expect.poll(async () => Number(await page.locator('[data-testid="readings-parts"] tr[data-name="R2"] td[data-col="i"]').getAttribute('data-mag'))).toBeGreaterThan(0.95);
+  // 100 A through one turn, 1000 turns on the secondary: about 0.1 A in the burden (turns ratio, from memory)
+  await expect.poll(async () => Number(await page.locator('[data-testid="readings-parts"] tr[data-name="Rburden"] td[data-col="i"]').getAttribute('data-mag'))).toBeGreaterThan(0.095);
   await shot(page, info, 'current-transformer-example');
 
   // the annotated picture saves as SVG and opens again as the same sheet
@@ -80,14 +80,14 @@ test('duplicate by key; a duplicate designator is refused with a message', async
   await page.getByRole('button', { name: /Sheets/ }).click();
   await page.locator('[data-example="isolation"]').click();
   const before = await partsCount(page);
-  const r1 = await page.evaluate(() => (window as any).__coilwright.state().sheet.parts.find((p: any) => p.ref === 'R1'));
+  const r1 = await page.evaluate(() => (window as any).__coilwright.state().sheet.parts.find((p: any) => p.ref === 'Rp'));
   await clickSheet(page, r1.x, r1.y);
   await page.keyboard.press('Control+d');
   expect(await partsCount(page)).toBe(before + 1);
-  await expect(page.getByTestId('field-ref')).toHaveValue('R4'); // R1–R3 are taken on the demo sheet
-  await page.getByTestId('field-ref').fill('R2');
+  await expect(page.getByTestId('field-ref')).toHaveValue('R1'); // the first free R number (the demo's resistors have names of their own)
+  await page.getByTestId('field-ref').fill('Rs');
   await page.getByTestId('field-ref').press('Enter');
-  await expect(page.locator('.field-error')).toContainText('R2 is already used on this sheet');
+  await expect(page.locator('.field-error')).toContainText('Rs is already used on this sheet');
   await shot(page, info, 'duplicate-designator-refused');
   await page.keyboard.press('Escape');
   await page.getByTestId('sheet-canvas').focus();

@@ -102,7 +102,7 @@ test('"__proto__" as a node name and as a designator shows in readings, overlay 
   await page.getByTestId('field-name').press('Enter');
   await expect(page.locator('[data-testid="readings-nodes"] tr[data-name="__proto__"]')).toBeVisible();
 
-  await page.locator('[data-testid="readings-parts"] tr[data-name="R2"] .row-btn').click();
+  await page.locator('[data-testid="readings-parts"] tr[data-name="Rsec"] .row-btn').click();
   await page.getByTestId('field-ref').fill('__proto__');
   await page.getByTestId('field-ref').press('Enter');
   await expect(page.locator('[data-testid="readings-parts"] tr[data-name="__proto__"]')).toBeVisible();
@@ -131,7 +131,7 @@ test('a title and designators built as spreadsheet formulas stay text in the res
   await page.keyboard.press('Escape');
   await page.getByTestId('sheet-title').fill('Bench,=1+1');
   await page.getByTestId('sheet-title').press('Enter');
-  await page.locator('[data-testid="readings-parts"] tr[data-name="R3"] .row-btn').click();
+  await page.locator('[data-testid="readings-parts"] tr[data-name="Rp"] .row-btn').click();
   await page.getByTestId('field-ref').fill('=HYPERLINK("http://example.invalid","x")');
   await page.getByTestId('field-ref').press('Enter');
   await expect(page.locator('[data-testid="readings-parts"] tr[data-name^="=HYPERLINK"]')).toBeVisible();

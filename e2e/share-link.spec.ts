@@ -60,7 +60,7 @@ test('copy a link, open it in a new page: solved, autosave untouched until Keep'
   const seen = await state(other);
   expect(seen.sheet).toEqual(shared); // sheet → link → sheet, identical
   expect(seen.solve.result.frequencyHz).toBe(shared.frequencyHz); // solved at the shared sheet's own frequency
-  await expect(other.locator('[data-testid="readings-parts"] tr[data-name="R3"]')).toBeVisible();
+  await expect(other.locator('[data-testid="readings-parts"] tr[data-name="Rbat"]')).toBeVisible();
   await shot(other, info, 'shared-sheet-opened');
   await other.waitForTimeout(300);
   expect(await storageOf(other)).toBe(before); // not a byte of the kept sheets changed

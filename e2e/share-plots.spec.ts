@@ -12,7 +12,7 @@ test('a finished sweep: its plots on the SVG sheet, its data as CSV', async ({ p
   await page.getByRole('button', { name: /Sheets/ }).click();
   await page.locator('[data-example="wireless"]').click();
   await expect.poll(() => page.evaluate(() => (window as any).__coilwright.state().solve.status)).toBe('solved');
-  await page.getByRole('button', { name: /^Frequency sweep/ }).click();
+  await page.getByRole('button', { name: /^Sweep/ }).click();
   await page.getByTestId('sweep-run').click();
   await expect(page.getByTestId('sweep-status')).toHaveAttribute('data-status', 'done');
   const from = Number(await page.getByTestId('sweep-from').inputValue().then((t) => t.replace(/k$/, 'e3')));

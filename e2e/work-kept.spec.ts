@@ -138,12 +138,12 @@ test('with browser storage full, the symbol standard still switches on screen an
   expect(filled).toBeGreaterThan(0);
   const draws = await page.evaluate(() => (window as any).__coilwright.sheetDraws.draws);
   await page.locator('[data-command="symbols"]').click();
-  await expect(page.locator('[data-command="symbols"]')).toHaveText('IEEE symbols');
+  await expect(page.locator('[data-command="symbols"]')).toHaveText('Symbols: IEEE 315');
   await expect(page.locator('.notice-error')).toContainText('for this visit only: the browser could not keep the choice (its storage is full)');
   expect((await state(page)).symbols).toBe('ieee');
   await expect.poll(() => page.evaluate(() => (window as any).__coilwright.sheetDraws.draws)).toBeGreaterThan(draws); // the sheet was drawn again, to the new standard
   await page.locator('[data-command="symbols"]').click();
-  await expect(page.locator('[data-command="symbols"]')).toHaveText('IEC symbols');
+  await expect(page.locator('[data-command="symbols"]')).toHaveText('Symbols: IEC 60617');
   expect(errors).toEqual([]);
 });
 

@@ -1,6 +1,8 @@
-// Writes the editor's example sheets (src/model/examples) as files in
-// examples/sheets/, with fixed ids so that the files only change when an
-// example does. Run: node scripts/write-example-sheets.mjs
+// Writes the editor's example sheets (src/model/examples, the one definition
+// of each scenario) as files in examples/sheets/, with fixed ids so that the
+// files only change when an example does, and the graph model each derives
+// as examples/graphs/. test/model/examples.test.ts checks that the files are
+// what this writes. Run: node scripts/write-example-sheets.mjs
 import { build } from 'esbuild';
 import { mkdirSync, unlinkSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
@@ -8,16 +10,11 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { tmpdir } from 'node:os';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const FILES = {
-  isolation: 'isolation-transformer-230v.json',
-  wireless: 'wireless-charging-85khz.json',
-  'current-transformer': 'current-transformer-burden.json',
-};
 
 const bundle = join(tmpdir(), `coilwright-examples-${process.pid}.mjs`);
 await build({
   stdin: {
-    contents: "export { EXAMPLES, seedIds } from './src/model/index.ts'; export { formatJson } from './src/cli/format.ts';",
+    contents: "export { EXAMPLES, seedIds, exampleFiles } from './src/model/index.ts'; export { formatJson } from './src/cli/format.ts';",
     resolveDir: root,
     loader: 'ts',
   },
@@ -33,12 +30,9 @@ try {
 } finally {
   unlinkSync(bundle);
 }
-const { EXAMPLES, seedIds, formatJson } = mod;
-const out = join(root, 'examples', 'sheets');
-mkdirSync(out, { recursive: true });
-EXAMPLES.forEach((ex, i) => {
-  const file = FILES[ex.key] ?? `${ex.key}.json`;
-  seedIds(1000 + i);
-  writeFileSync(join(out, file), formatJson(ex.make()) + '\n');
-  console.log(`examples/sheets/${file}`);
-});
+const { exampleFiles, formatJson } = mod;
+for (const f of exampleFiles()) {
+  mkdirSync(join(root, dirname(f.path)), { recursive: true });
+  writeFileSync(join(root, f.path), formatJson(f.json) + '\n');
+  console.log(f.path);
+}

@@ -15,6 +15,7 @@ import { worldToScreen } from './store/actions';
 import { pinPositions } from './model/parts/registry';
 import { overlayProbe, sheetProbe } from './store/probe';
 import { sweepTestHold } from './ui/analysis/sweepRunner';
+import { drawnTags } from './canvas/drawOverlay';
 import './ui/app.css';
 
 const storage = window.localStorage;
@@ -54,6 +55,13 @@ const tools = new ToolController(store);
   overlay: overlayProbe,
   sheetDraws: sheetProbe,
   toScreen: (x: number, y: number) => worldToScreen(store.getState().view, x, y),
+  /** the reading tags last drawn on the canvas, as boxes in sheet units */
+  tags: () => drawnTags.boxes,
+  /** a part's pin in sheet units */
+  pin: (ref: string, pin: number) => {
+    const p = store.getState().sheet.parts.find((q) => q.ref === ref);
+    return p ? pinPositions(p)[pin] : null;
+  },
   pinOnScreen: (ref: string, pin: number) => {
     const p = store.getState().sheet.parts.find((q) => q.ref === ref);
     if (!p) return null;
@@ -73,6 +81,6 @@ const tools = new ToolController(store);
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
-    <App store={store} tools={tools} storage={storage} guard={guard} solver={solver} />
+    <App store={store} tools={tools} storage={storage} guard={guard} solver={solver} readGraph={(json) => import('./solver').then((m) => m.parseGraphModel(json))} />
   </StrictMode>,
 );

@@ -5,7 +5,7 @@
  * tag at each node; the culprit of a refused model marked with the one-line
  * reason. Where each goes is decided by the shared layout in model/drawLayout.
  */
-import { overlayLayout, type OverlayLayout } from '../model/drawLayout';
+import { declutterTags, overlayLayout, tagBox, type OverlayLayout, type TextMeasure } from '../model/drawLayout';
 import type { SolveResult } from '../model/graph';
 import type { Point, Rect } from '../model/geometry';
 import { couplingGeometry } from '../model/hit';
@@ -62,12 +62,26 @@ function textWidth(c: CanvasRenderingContext2D, text: string): number {
   return w;
 }
 
+/** Reading tags are 11 units high: about 11 px at 100 % zoom. */
+export const TAG_FONT = 11;
+
+/** Widths in the fonts the canvas draws with (monospace tags; designators and values in the sans face). */
+function measureWith(c: CanvasRenderingContext2D): TextMeasure {
+  return {
+    tag: (s) => { c.font = `${TAG_FONT}px ${THEME.mono}`; return textWidth(c, s); },
+    label: (s, size, bold) => { c.font = `${bold ? '600 ' : ''}${size}px ${THEME.font}`; return c.measureText(s).width; },
+  };
+}
+
+/** The boxes of the tags last drawn, in sheet units (tests read them to check that no two overlap). */
+export const drawnTags: { boxes: { x0: number; y0: number; x1: number; y1: number; text: string }[] } = { boxes: [] };
+
 function tag(c: CanvasRenderingContext2D, text: string, x: number, y: number, color: string, align: 'left' | 'right' | 'center' = 'left'): void {
-  c.font = `10px ${THEME.mono}`;
+  c.font = `${TAG_FONT}px ${THEME.mono}`;
   const w = textWidth(c, text) + 8;
   const x0 = align === 'left' ? x : align === 'right' ? x - w : x - w / 2;
   c.fillStyle = THEME.tagFill;
-  c.fillRect(x0, y - 8, w, 14);
+  c.fillRect(x0, y - 8, w, 15);
   c.fillStyle = color;
   c.textAlign = 'left';
   c.textBaseline = 'middle';
@@ -77,13 +91,15 @@ function tag(c: CanvasRenderingContext2D, text: string, x: number, y: number, co
 let layoutCache: { key: unknown[]; layout: OverlayLayout } | null = null;
 
 /** The placement of readings (shared with the SVG export), computed again only when its inputs change. */
-function layoutFor(o: OverlayInput, crowdedAbove: number): OverlayLayout {
+function layoutFor(c: CanvasRenderingContext2D, o: OverlayInput, crowdedAbove: number): OverlayLayout {
   // the hovered node matters only when tags are shown on hover
   const crowded = o.circuit!.topology.anchors.size > crowdedAbove;
   const focusNode = crowded ? o.hoverNode : null;
   const key = [o.sheet, o.result, o.circuit, o.hidden, crowdedAbove, focusNode, o.readout];
   if (!layoutCache || layoutCache.key.some((k, i) => k !== key[i])) {
-    layoutCache = { key, layout: overlayLayout(o.sheet, o.circuit!, o.result!, { hidden: o.hidden, crowdedAbove, focusNode, readout: o.readout }) };
+    // tags moved off parts, designators and each other where a nearby spot is free (the SVG places them alike)
+    const raw = overlayLayout(o.sheet, o.circuit!, o.result!, { hidden: o.hidden, crowdedAbove, focusNode, readout: o.readout });
+    layoutCache = { key, layout: raw.tags.length <= 400 ? declutterTags(o.sheet, raw, measureWith(c)) : raw };
   }
   return layoutCache.layout;
 }
@@ -98,7 +114,9 @@ export function drawOverlay(c: CanvasRenderingContext2D, o: OverlayInput): void 
 
   if (o.result && o.circuit) {
     // zoomed far out every node tag would overlap: then only the one under the pointer is shown
-    const layout = layoutFor(o, v.zoom < 0.6 ? -1 : 60);
+    const layout = layoutFor(c, o, v.zoom < 0.6 ? -1 : 60);
+    const m = measureWith(c);
+    drawnTags.boxes = [];
     const currentColor = o.stale ? THEME.stale : THEME.current;
     const voltageColor = o.stale ? THEME.stale : THEME.voltage;
     for (const a of layout.arrows) if (inView(a.to)) arrow(c, a.from, a.to, a.width, currentColor);
@@ -107,6 +125,13 @@ export function drawOverlay(c: CanvasRenderingContext2D, o: OverlayInput): void 
       if (!inView(t)) continue;
       if (t.kind === 'current' && !currentLabels) continue;
       const color = t.kind === 'current' ? currentColor : voltageColor;
+      // kept inside the view: a tag that would be cut at an edge slides in
+      const b = tagBox(t, m);
+      const dx = b.x0 < o.visible.x0 + 2 ? o.visible.x0 + 2 - b.x0 : b.x1 > o.visible.x1 - 2 ? o.visible.x1 - 2 - b.x1 : 0;
+      const box = { x0: b.x0 + dx, y0: b.y0, x1: b.x1 + dx, y1: b.y1, text: t.text };
+      // a tag with no free spot left waits under the pointer: it shows when its node is hovered
+      const hovered = t.kind === 'voltage' && o.hoverNode !== null && t.text.startsWith(`${o.hoverNode}: `);
+      if (!hovered && drawnTags.boxes.some((q) => q.x0 < box.x1 && box.x0 < q.x1 && q.y0 < box.y1 && box.y0 < q.y1)) continue;
       if (t.leader) {
         c.strokeStyle = color;
         c.lineWidth = 0.8;
@@ -117,7 +142,8 @@ export function drawOverlay(c: CanvasRenderingContext2D, o: OverlayInput): void 
         c.stroke();
         c.setLineDash([]);
       }
-      tag(c, t.text, t.x, t.y, color, t.align);
+      tag(c, t.text, t.x + dx, t.y, color, t.align);
+      drawnTags.boxes.push(box);
     }
   }
 

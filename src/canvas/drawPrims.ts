@@ -1,5 +1,5 @@
 /** Drawing part definitions' primitives onto a 2D canvas context. */
-import type { Prim } from '../model/parts/types';
+import type { Mark, Prim } from '../model/parts/types';
 import type { Placement } from '../model/geometry';
 import { toSheet } from '../model/geometry';
 
@@ -48,5 +48,21 @@ export function drawPrims(c: CanvasRenderingContext2D, pl: Placement, prims: Pri
     const q = toSheet(pl, p.x, p.y);
     c.font = `${p.size}px sans-serif`;
     c.fillText(p.s, q.x, q.y);
+  }
+}
+
+/** Upright marks (polarity dots, node names) in sheet coordinates. */
+export function drawMarks(c: CanvasRenderingContext2D, marks: Mark[], color: string, font = '"JetBrains Mono", ui-monospace, monospace'): void {
+  c.fillStyle = color;
+  for (const m of marks) {
+    if (m.t === 'dot') {
+      c.beginPath();
+      c.arc(m.x, m.y, m.r, 0, Math.PI * 2);
+      c.fill();
+    } else {
+      c.font = `${m.bold ? '600 ' : ''}${m.size}px ${m.mono ? font : 'sans-serif'}`;
+      c.textAlign = 'left';
+      c.fillText(m.s, m.x, m.y);
+    }
   }
 }

@@ -1,13 +1,13 @@
 /** Draws the sheet itself: grid, wires, junctions, open ends, parts, labels, couplings, selection. */
 import { GRID, type Rect } from '../model/geometry';
-import { couplingGeometry, couplingLabelBox } from '../model/hit';
-import { PART_DEFS, dotPosition, partBox } from '../model/parts/registry';
+import { COUPLING_TEXT, couplingGeometry } from '../model/hit';
+import { PART_DEFS, partBox, partMarks } from '../model/parts/registry';
 import type { SymbolStyle } from '../model/parts/types';
 import type { Sheet } from '../model/sheet';
-import { couplingText, labelNameSpot, partLabelSpot } from '../model/drawLayout';
+import { partLabelSpot } from '../model/drawLayout';
 import type { Topology } from '../model/topology';
 import type { View } from '../store/types';
-import { drawPrims } from './drawPrims';
+import { drawMarks, drawPrims } from './drawPrims';
 import { THEME } from './theme';
 
 export function visibleRect(v: View, width: number, height: number): Rect {
@@ -60,6 +60,8 @@ export interface SheetDrawOptions {
   selection: Set<string>;
   topology: Topology | null;
   culprits: Set<string>;
+  /** parts a hazard caution is about: marked in the caution colour with a warning sign */
+  hazards?: Set<string>;
   view: View;
   visible: Rect;
   style?: SymbolStyle;
@@ -119,16 +121,16 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
     }
     c.stroke();
     c.setLineDash([]);
-    const text = couplingText(cp);
-    const box = couplingLabelBox(g.label);
+    const { text, box } = g;
     c.fillStyle = sel ? '#e8f0fa' : bad ? '#fbeae8' : '#fbf3e4';
     c.fillRect(box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0);
     c.strokeRect(box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0);
     c.fillStyle = bad ? THEME.error : THEME.coupling;
-    c.font = `600 10px ${THEME.font}`;
+    c.font = `600 ${COUPLING_TEXT}px ${THEME.font}`;
     c.textAlign = 'center';
     c.textBaseline = 'middle';
     c.fillText(text, g.label.x, g.label.y);
+    c.textBaseline = 'alphabetic';
   }
 
   // parts
@@ -149,28 +151,29 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
       c.strokeRect(box.x0 - 4, box.y0 - 4, box.x1 - box.x0 + 8, box.y1 - box.y0 + 8);
       c.setLineDash([]);
     }
+    if (o.hazards?.has(p.id)) {
+      c.strokeStyle = THEME.hazard;
+      c.fillStyle = THEME.hazardFill;
+      c.lineWidth = 2;
+      c.setLineDash([5, 3]);
+      c.fillRect(box.x0 - 7, box.y0 - 7, box.x1 - box.x0 + 14, box.y1 - box.y0 + 14);
+      c.strokeRect(box.x0 - 7, box.y0 - 7, box.x1 - box.x0 + 14, box.y1 - box.y0 + 14);
+      c.setLineDash([]);
+      c.fillStyle = THEME.hazard;
+      c.font = `700 14px ${THEME.font}`;
+      c.textAlign = 'center';
+      c.fillText('⚠', box.x0 - 7, box.y0 - 9);
+      c.lineWidth = lw;
+    }
     drawPrims(c, p, def.draw(p, o.style), bad ? THEME.error : sel ? THEME.select : THEME.ink);
-    if (p.kind === 'winding') {
-      const d = dotPosition(p)!;
-      c.fillStyle = bad ? THEME.error : THEME.ink;
-      c.beginPath();
-      c.arc(d.x, d.y, 2.8, 0, Math.PI * 2);
-      c.fill();
-    }
-    if (p.kind === 'label') {
-      c.fillStyle = THEME.ink;
-      c.font = `600 10px ${THEME.mono}`;
-      c.textAlign = 'left';
-      const at = labelNameSpot(p);
-      c.fillText(p.name ?? '', at.x, at.y);
-    }
+    drawMarks(c, partMarks(p), bad ? THEME.error : THEME.ink);
     if (detail && def.prefix) {
       const spot = partLabelSpot(p, box);
       c.textAlign = spot.align;
-      c.font = `600 11px ${THEME.font}`;
+      c.font = `600 12px ${THEME.font}`;
       c.fillStyle = bad ? THEME.error : THEME.label;
       c.fillText(p.ref, spot.x, spot.y);
-      c.font = `10px ${THEME.font}`;
+      c.font = `11px ${THEME.font}`;
       c.fillStyle = THEME.value;
       c.fillText(def.valueText(p), spot.x, spot.y + 12);
     }

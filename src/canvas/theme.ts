@@ -17,6 +17,8 @@ export const THEME = {
   voltage: '#4a4f9e',
   stale: '#a3a8ad',
   error: '#b42318',
+  hazard: '#c2410c',
+  hazardFill: 'rgba(194, 65, 12, 0.10)',
   errorFill: 'rgba(180, 35, 24, 0.10)',
   tagFill: 'rgba(255, 255, 255, 0.88)',
   font: '"Inter", "Segoe UI", system-ui, sans-serif',

@@ -7,12 +7,12 @@
 import type { Point, Rect } from '../model/geometry';
 import { toSheet } from '../model/geometry';
 import type { RefusalCulprit, SolveResult } from '../model/graph';
-import { couplingGeometry, couplingLabelBox } from '../model/hit';
-import { PART_DEFS, dotPosition, partBox } from '../model/parts/registry';
+import { COUPLING_TEXT, couplingGeometry } from '../model/hit';
+import { PART_DEFS, partBox, partMarks } from '../model/parts/registry';
 import type { Prim } from '../model/parts/types';
 import type { Part, Sheet } from '../model/sheet';
 import type { DerivedCircuit } from '../model/toGraph';
-import { couplingText, declutterTags, labelNameSpot, overlayLayout, partLabelSpot, tagBox, type Align, type OverlayLayout, type TagLayout, type TextMeasure } from '../model/drawLayout';
+import { declutterTags, overlayLayout, partLabelSpot, tagBox, type Align, type OverlayLayout, type TagLayout, type TextMeasure } from '../model/drawLayout';
 import { PRINT } from './palette';
 import { MONO, num, textWidth, type Face } from './text';
 import { escText } from './xml';
@@ -168,10 +168,10 @@ export function drawSchematic(sheet: Sheet, circuit: DerivedCircuit, result: Sol
   const drawable = sheet.couplings.filter((cp) => cp.windings.some((id) => partsById.has(id)));
   const couplings = drawable.map((cp) => {
     const g = couplingGeometry(sheet, cp);
-    const label = couplingText(cp);
-    const box = couplingLabelBox(g.label);
-    // the label box grows to hold a long designator
-    const need = textWidth(label, 10, 'bold') + 10;
+    const label = g.text;
+    const box = g.box;
+    // the label box holds the text with room on each side, however the print font measures it
+    const need = textWidth(label, COUPLING_TEXT, 'bold') + 14;
     const w = Math.max(box.x1 - box.x0, need);
     const wide = { x0: g.label.x - w / 2, y0: box.y0, x1: g.label.x + w / 2, y1: box.y1 };
     ext.rect(wide);
@@ -216,7 +216,7 @@ export function drawSchematic(sheet: Sheet, circuit: DerivedCircuit, result: Sol
       if (d) out.push(`<path d="${d}" fill="none" stroke="${color}" stroke-width="${num(lw * 0.8, 3)}" stroke-dasharray="5 4"/>`);
       out.push(`<rect x="${num(c.box.x0)}" y="${num(c.box.y0)}" width="${num(c.box.x1 - c.box.x0)}" height="${num(c.box.y1 - c.box.y0)}" rx="2" fill="${c.bad ? PRINT.errorFill : PRINT.couplingFill}" stroke="${color}" stroke-width="${num(lw * 0.6, 3)}"/>`);
       // the label's double space is kept, as on the canvas
-      out.push(text(c.label, c.at.x, c.at.y + 3.5, { size: 10, fill: color, align: 'center', weight: 600, cls: c.bad ? 'coupling culprit' : 'coupling', attrs: 'xml:space="preserve"' }));
+      out.push(text(c.label, c.at.x, c.at.y + 3.8, { size: COUPLING_TEXT, fill: color, align: 'center', weight: 600, cls: c.bad ? 'coupling culprit' : 'coupling' }));
     }
     out.push('</g>');
 
@@ -245,8 +245,7 @@ export function drawSchematic(sheet: Sheet, circuit: DerivedCircuit, result: Sol
         const at = toSheet(p, q.x, q.y);
         out.push(text(q.s, at.x, at.y, { size: q.size, fill: PRINT.ink, attrs: 'stroke="none"' }));
       }
-      const dot = dotPosition(p);
-      if (dot && p.kind === 'winding') out.push(`<circle cx="${num(dot.x)}" cy="${num(dot.y)}" r="2.8" fill="${PRINT.ink}" stroke="none" class="polarity-dot"/>`);
+      for (const m of partMarks(p)) if (m.t === 'dot') out.push(`<circle cx="${num(m.x)}" cy="${num(m.y)}" r="${num(m.r)}" fill="${PRINT.ink}" stroke="none" class="${m.role}"/>`);
     }
     out.push('</g>');
 
@@ -256,9 +255,9 @@ export function drawSchematic(sheet: Sheet, circuit: DerivedCircuit, result: Sol
       out.push(text(l.value, l.x, l.y + 12, { size: VALUE_SIZE, fill: PRINT.value, align: l.align, cls: 'value' }));
     }
     for (const p of sheet.parts) {
-      if (p.kind !== 'label') continue;
-      const at = labelNameSpot(p);
-      out.push(text(p.name ?? '', at.x, at.y, { size: 10, fill: PRINT.ink, weight: 600, font: MONO, cls: 'node-label' }));
+      for (const m of partMarks(p)) {
+        if (m.t === 'text') out.push(text(m.s, m.x, m.y, { size: m.size, fill: PRINT.ink, weight: m.bold ? 600 : undefined, font: m.mono ? MONO : undefined, cls: m.role }));
+      }
     }
     out.push('</g>');
 

@@ -2,6 +2,7 @@
 import type { ComplexJson, GraphModel, SolveResult } from '../model/graph';
 import { angleDeg, mag } from '../model/phasor';
 import { formatAngle, formatSI } from '../model/quantity';
+import { couplingName, couplingTitle } from '../model/couplingName';
 import type { DerivedCircuit } from '../model/toGraph';
 import { hline, rect, t, type Block } from './blocks';
 import type { SvgOptions } from './options';
@@ -100,12 +101,14 @@ export function tableBlock(circuit: DerivedCircuit, result: SolveResult | null, 
   }
   const all = resultRows(circuit.model, result);
   const tot = powerTotals(circuit.model, result);
-  const ground = circuit.model.ground;
+  // an isolated section is measured from its own reference node, not from the ground
+  const ground = result.warnings.some((w) => /^isolated part/.test(w)) ? `${circuit.model.ground} (in each isolated section, to its own reference node: see the notes)` : circuit.model.ground;
   const convention = result.amplitudes === 'rms' ? 'RMS' : 'peak';
   const lead = result.frequencyHz === 0
     ? `DC values; node voltages to ${ground}; P = V·I absorbed by each part (negative: delivered).`
     : `Magnitudes are ${convention} values (${result.amplitudes === 'rms' ? 'S = V·I*' : 'S = ½·V·I*'}), angles in degrees; node voltages to ${ground}; P and Q absorbed by each part (negative: delivered).`;
   const summary = `Sources deliver P = ${wattsText(tot.watts)}, Q = ${varsText(tot.vars)}; resistors dissipate ${wattsText(tot.dissipated)}.`;
+  const couplingLines = couplingSummary(circuit);
 
   // node voltages and part readings side by side, each in as many groups as the height needs,
   // at the largest font (2.5 mm down to 1.7 mm) at which all groups fit the width
@@ -128,7 +131,7 @@ export function tableBlock(circuit: DerivedCircuit, result: SolveResult | null, 
   const GROUP_GAP = 6;
   const leadLines = wrap(lead, width, 2.2);
   const headH = 5.2 + leadLines.length * 3 + 1.2;
-  const footH = 4.6;
+  const footH = 4.6 + couplingLines.length * 3.6;
   const rowsFit = (size: number) => Math.max(2, Math.floor((maxHeight - headH - footH) / (size * 1.5)) - 1);
   const totalW = (size: number) => sections.reduce((w, sec) => w + sec.groups * (groupW(sec, size) + GROUP_GAP), -GROUP_GAP);
   let size = 2.5;
@@ -199,8 +202,31 @@ export function tableBlock(circuit: DerivedCircuit, result: SolveResult | null, 
       cy += rh;
     }
     out.push(t(summary, x, cy + 3.8, 2.3, { fill: PRINT.ink, cls: 'summary' }));
+    couplingLines.forEach((l, i) => out.push(t(l, x, cy + 7.4 + i * 3.6, 2.3, { fill: PRINT.coupling, cls: 'coupling-row' })));
     out.push('</g>');
     return out.join('\n');
   };
   return { height, render };
+}
+
+/**
+ * One line per coupling, named by its windings: both self-inductances, M and
+ * k (M = k·√(L1·L2), field notes) and the effective turns ratio √(L1/L2)
+ * (inductance goes with the turns squared; common practice).
+ */
+export function couplingSummary(circuit: DerivedCircuit): string[] {
+  const sheet = circuit.source;
+  const out: string[] = [];
+  for (const cp of sheet.couplings) {
+    const ws = cp.windings.map((id) => sheet.parts.find((p) => p.id === id)).filter((p) => !!p);
+    if (ws.length !== 2) continue;
+    const [l1, l2] = ws.map((w) => w!.value ?? 0);
+    const root = Math.sqrt(l1 * l2);
+    const k = cp.by === 'k' ? cp.value : root > 0 ? cp.value / root : 0;
+    const m = cp.by === 'M' ? cp.value : cp.value * root;
+    const n = l2 > 0 ? Math.sqrt(l1 / l2) : 0;
+    const ratio = n >= 1 ? `${Number(n.toPrecision(4))} : 1` : n > 0 ? `1 : ${Number((1 / n).toPrecision(4))}` : '—';
+    out.push(`${couplingTitle(sheet, cp)}: ${ws[0]!.ref} = ${formatSI(l1, 'H', 4)}, ${ws[1]!.ref} = ${formatSI(l2, 'H', 4)}, ${couplingName(sheet, cp, 'M')} = ${formatSI(m, 'H', 4)}, ${couplingName(sheet, cp, 'k')} = ${Number(k.toPrecision(4))}, effective turns ratio √(${ws[0]!.ref}/${ws[1]!.ref}) = ${ratio}`);
+  }
+  return out;
 }

@@ -74,7 +74,7 @@ export interface TAnswer {
 }
 
 export interface PowerAnswer {
-  rows: { id: string; kind: string; watts: number; vars: number; va: number; powerFactor: number | null }[];
+  rows: { id: string; kind: string; watts: number; vars: number; va: number; powerFactor: number | null; sense: 'lagging' | 'leading' | null }[];
   delivered: { watts: number; vars: number };
   dissipated: number;
   tellegen: { watts: number; vars: number; relative: number };

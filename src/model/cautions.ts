@@ -6,12 +6,18 @@
  */
 import type { GraphModel, SolveResult } from './graph';
 import { mag } from './phasor';
+import { formatSI } from './quantity';
 
 export const ELV_AC_RMS = 50;
 /** above this, a winding's load counts as open */
 export const OPEN_LOAD_OHMS = 1e5;
 
-export interface Caution { kind: 'elv' | 'open-winding'; text: string }
+export interface Caution {
+  kind: 'elv' | 'open-winding' | 'open-secondary';
+  text: string;
+  /** what the caution is about, to mark on the drawing: an element by its graph id, or a node */
+  target: { kind: 'element' | 'node'; id: string } | null;
+}
 
 export function cautionsFor(model: GraphModel, result: SolveResult): Caution[] {
   const out: Caution[] = [];
@@ -19,23 +25,25 @@ export function cautionsFor(model: GraphModel, result: SolveResult): Caution[] {
   const toRms = result.amplitudes === 'peak' ? 1 / Math.SQRT2 : 1;
   let worst = 0;
   let where = '';
+  let target: Caution['target'] = null;
   const nodeNames = Object.keys(result.nodes);
   for (const n of nodeNames) {
     const v = mag(result.nodes[n]) * toRms;
-    if (v > worst) { worst = v; where = `node ${n}`; }
+    if (v > worst) { worst = v; where = `node ${n}`; target = { kind: 'node', id: n }; }
   }
   for (const [id, r] of Object.entries(result.elements)) {
     const vs = 'voltage' in r ? [r.voltage] : r.voltages;
     for (const z of vs) {
       const v = mag(z) * toRms;
-      if (v > worst) { worst = v; where = id; }
+      if (v > worst) { worst = v; where = id; target = { kind: 'element', id }; }
     }
   }
   const limit = model.frequencyHz === 0 ? 120 : ELV_AC_RMS;
   if (worst > limit) {
     out.push({
       kind: 'elv',
-      text: `${where} reaches ${worst.toPrecision(3)} V ${model.frequencyHz === 0 ? 'DC' : 'RMS'}, above extra-low voltage (${limit} V ${model.frequencyHz === 0 ? 'ripple-free DC' : 'AC RMS'}). This model is linear and idealised: insulation, creepage, fusing and protective earth are not checked. Building or testing it must follow local electrical codes and licensed practice.`,
+      target,
+      text: `${where} reaches ${formatSI(worst, 'V', 4)} ${model.frequencyHz === 0 ? 'DC' : 'RMS'}, above extra-low voltage (${limit} V ${model.frequencyHz === 0 ? 'ripple-free DC' : 'AC RMS'}). This model is linear and idealised: insulation, creepage, fusing and protective earth are not checked. Building or testing it must follow local electrical codes and licensed practice.`,
     });
   }
   for (const c of model.couplings ?? []) {
@@ -50,10 +58,49 @@ export function cautionsFor(model: GraphModel, result: SolveResult): Caution[] {
       if (open && carrying.some((x) => x && x.id !== w.id)) {
         out.push({
           kind: 'open-winding',
-          text: `Winding ${w.id} is coupled to a current-carrying winding but feeds an open or very high-impedance load (${(w.v * toRms).toPrecision(3)} V across it). An open current-transformer secondary can develop dangerous voltage: keep a burden connected or the winding shorted, following local codes and licensed practice.`,
+          target: { kind: 'element', id: w.id },
+          text: `Winding ${w.id} is coupled to a current-carrying winding but feeds an open or very high-impedance load (${formatSI(w.v * toRms, 'V', 4)} RMS across it). An open current-transformer secondary can develop dangerous voltage: keep a burden connected or the winding shorted, following local codes and licensed practice.`,
         });
       }
     }
+  }
+  return out;
+}
+
+/**
+ * An ideal transformer whose secondary closes no circuit while a current
+ * source drives its primary side: the model has no solution (the secondary
+ * voltage would have to be infinite), which is exactly the hazard of an open
+ * current-transformer secondary (common practice: never open-circuit a CT
+ * secondary under load). Read from the graph alone, so it is named even when
+ * the solve is refused.
+ */
+export function openSecondaries(model: GraphModel): Caution[] {
+  const out: Caution[] = [];
+  for (const t of model.elements) {
+    if (t.kind !== 'ideal-transformer') continue;
+    const parent = new Map<string, string>();
+    const find = (n: string): string => {
+      let r = n;
+      while (parent.has(r) && parent.get(r) !== r) r = parent.get(r)!;
+      return r;
+    };
+    const join = (a: string, b: string) => { const ra = find(a), rb = find(b); if (ra !== rb) parent.set(ra, rb); };
+    for (const e of model.elements) {
+      if (e === t) continue;
+      if (e.kind === 'ideal-transformer') { join(e.nodes[0], e.nodes[1]); join(e.nodes[2], e.nodes[3]); continue; }
+      if (e.kind === 'current-source') continue; // a current source closes no path for the secondary current
+      join(e.nodes[0], e.nodes[1]);
+    }
+    const [p1, p2, s1, s2] = t.nodes;
+    if (find(s1) === find(s2)) continue;
+    const driven = model.elements.some((e) => e.kind === 'current-source' && [find(e.nodes[0]), find(e.nodes[1])].some((r) => r === find(p1) || r === find(p2)));
+    if (!driven) continue;
+    out.push({
+      kind: 'open-secondary',
+      target: { kind: 'element', id: t.id },
+      text: `The secondary of ${t.id} is open while a current source drives its primary: this is an open current-transformer secondary, which develops dangerous voltage (the ideal model has no finite answer at all). Connect the burden or short the secondary before the primary carries current, following local codes and licensed practice.`,
+    });
   }
   return out;
 }

@@ -1,11 +1,10 @@
-/** Designators: R1, L1, C1, V1, I1, T1 and K1 for couplings; unique on a sheet. */
+/** Designators: R1, L1, C1, V1, I1, T1; unique on a sheet (couplings are named by their windings). */
 import { nameProblem } from './names';
 import type { Sheet } from './sheet';
 
 export function usedRefs(sheet: Sheet): Set<string> {
   const s = new Set<string>();
   for (const p of sheet.parts) if (p.ref) s.add(p.ref.toUpperCase());
-  for (const c of sheet.couplings) if (c.ref) s.add(c.ref.toUpperCase());
   return s;
 }
 
@@ -27,8 +26,7 @@ export function refProblem(sheet: Sheet, ownerId: string, ref: string): string |
   const problem = nameProblem(r);
   if (problem) return `A designator ${problem}`;
   if (r.toLowerCase() === 'gnd') return '"gnd" is the ground node name';
-  const clash = sheet.parts.find((p) => p.id !== ownerId && p.ref.toUpperCase() === r.toUpperCase())
-    ?? sheet.couplings.find((c) => c.id !== ownerId && c.ref.toUpperCase() === r.toUpperCase());
+  const clash = sheet.parts.find((p) => p.id !== ownerId && p.ref.toUpperCase() === r.toUpperCase());
   if (clash) return `${r} is already used on this sheet; designators must be unique`;
   return null;
 }

@@ -6,11 +6,11 @@
  */
 import type { ComplexJson, ElementResult, SolveResult, TwoTerminalResult } from './graph';
 import { toSheet, type Point, type Rect } from './geometry';
-import { couplingGeometry, couplingLabelBox } from './hit';
+import { couplingGeometry } from './hit';
 import { PART_DEFS, partBox, pinPositions } from './parts/registry';
 import { angleDeg, mag } from './phasor';
 import { formatAngle, formatSI, siScale } from './quantity';
-import type { Part, Sheet, SheetCoupling } from './sheet';
+import { defaultDisplay, type Part, type Sheet } from './sheet';
 import type { DerivedCircuit } from './toGraph';
 import { wireFlows } from './wireFlows';
 
@@ -42,22 +42,9 @@ export function rectText(z: ComplexJson, unit: string, digits = 4): string {
 
 /** Where a part's designator goes (its value text sits one line, 12 units, below). */
 export function partLabelSpot(part: Part, box: Rect): { x: number; y: number; align: Align } {
-  if (part.kind === 'transformer') return { x: (box.x0 + box.x1) / 2, y: box.y1 + 14, align: 'center' };
+  if (PART_DEFS[part.kind].labelBelow) return { x: (box.x0 + box.x1) / 2, y: box.y1 + 14, align: 'center' };
   if (part.rot % 2 === 1) return { x: box.x1 + 6, y: (box.y0 + box.y1) / 2 - 6, align: 'left' };
   return { x: (box.x0 + box.x1) / 2, y: box.y0 - 14, align: 'center' };
-}
-
-/** Where a node label's name is written (baseline start). */
-export function labelNameSpot(part: Part): Point {
-  const box = partBox(part);
-  const pin = pinPositions(part)[0];
-  const flipped = part.rot === 2 || (part.mirror && part.rot === 0);
-  return { x: flipped ? box.x0 + 4 : pin.x + 9, y: pin.y + 3.5 + (part.rot % 2 ? 16 : 0) };
-}
-
-/** The text of a coupling's label: its designator and k or M. */
-export function couplingText(cp: SheetCoupling): string {
-  return `${cp.ref || 'K'}  ${cp.by === 'k' ? `k = ${Number(cp.value.toPrecision(4))}` : `M = ${formatSI(cp.value, 'H', 3)}`}`;
 }
 
 export interface ArrowLayout { from: Point; to: Point; width: number }
@@ -97,6 +84,7 @@ export function currentWeight(m: number, maxI: number): number {
 export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: SolveResult, o: OverlayLayoutOptions = {}): OverlayLayout {
   const arrows: ArrowLayout[] = [];
   const tags: TagLayout[] = [];
+  const display = sheet.display ?? defaultDisplay();
   const partsById = new Map<string, Part>();
   for (const p of sheet.parts) partsById.set(p.id, p);
   let maxI = 0;
@@ -113,6 +101,8 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
     const partId = circuit.partOfElement.get(id);
     const part = partId ? partsById.get(partId) : undefined;
     if (!part || o.hidden?.has(part.id)) continue;
+    // what the sheet's display settings leave out
+    if (!display.partCurrents || display.hideKinds.includes(part.kind) || display.hideParts.includes(part.id)) continue;
     const r = result.elements[id];
     if (isTwo(r)) {
       const m = mag(r.current);
@@ -140,7 +130,7 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
     }
   }
 
-  if (!o.noWireFlows) {
+  if (!o.noWireFlows && display.wireCurrents) {
     const elementOfPart = new Map<string, string>();
     for (const [el, part] of circuit.partOfElement) elementOfPart.set(part, el);
     for (const f of wireFlows(sheet, result, elementOfPart)) {
@@ -155,7 +145,7 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
   const anchors = circuit.topology.anchors;
   const crowded = anchors.size > (o.crowdedAbove ?? 60);
   for (const name in result.nodes) {
-    if (name === circuit.model.ground) continue;
+    if (name === circuit.model.ground || !display.nodeVoltages) continue;
     if (crowded && name !== o.focusNode) continue;
     const at = anchors.get(name);
     if (!at) continue;
@@ -220,7 +210,7 @@ export function declutterTags(sheet: Sheet, layout: OverlayLayout, m: TextMeasur
       hard.push({ x0, y0: spot.y + dy - size * 0.8, x1: x0 + w, y1: spot.y + dy + size * 0.25 });
     }
   }
-  for (const c of sheet.couplings) hard.push(couplingLabelBox(couplingGeometry(sheet, c).label));
+  for (const c of sheet.couplings) hard.push(couplingGeometry(sheet, c).box);
   for (const w of sheet.wires) {
     for (let i = 0; i + 3 < w.pts.length; i += 2) {
       const [x0, y0, x1, y1] = [w.pts[i], w.pts[i + 1], w.pts[i + 2], w.pts[i + 3]];

@@ -2,7 +2,7 @@
 import { nextRef, usedRefs } from './designators';
 import { pointKey, snap, type Point, type QuarterTurns } from './geometry';
 import { newId } from './ids';
-import { PART_DEFS, pinPositions } from './parts/registry';
+import { PART_DEFS, isCouplable, pinPositions } from './parts/registry';
 import type { Part, PartKind, Sheet, SheetCoupling, Wire } from './sheet';
 import { moveWireEnd, tidyWire, translatePts } from './wires';
 
@@ -12,12 +12,12 @@ export function makePart(sheet: Sheet, kind: PartKind, x: number, y: number, rot
     id: newId('part'), kind, x: snap(x), y: snap(y), rot: rot ?? def.defaultRot, mirror,
     ref: nextRef(def.prefix, usedRefs(sheet)), ...def.defaults,
   };
-  if (kind === 'label') part.name = nextLabelName(sheet);
+  if (def.nameField) part.name = nextLabelName(sheet);
   return part;
 }
 
 function nextLabelName(sheet: Sheet): string {
-  const used = new Set(sheet.parts.filter((p) => p.kind === 'label').map((p) => p.name));
+  const used = new Set(sheet.parts.filter((p) => PART_DEFS[p.kind].nameField).map((p) => p.name));
   for (let i = 0; i < 26 * 4; i++) {
     const n = i < 26 ? String.fromCharCode(97 + i) : `${String.fromCharCode(97 + (i % 26))}${Math.floor(i / 26)}`;
     if (!used.has(n)) return n;
@@ -114,8 +114,8 @@ export function tidyWires(sheet: Sheet, ids?: Set<string>): Sheet {
   return { ...sheet, wires: sheet.wires.map((w) => (!ids || ids.has(w.id) ? { ...w, pts: tidyWire(w.pts) } : w)) };
 }
 
-export function rotateParts(sheet: Sheet, ids: Set<string>): Sheet {
-  return changeParts(sheet, ids, (p) => ({ ...p, rot: (((p.rot + 1) % 4) as QuarterTurns) }));
+export function rotateParts(sheet: Sheet, ids: Set<string>, quarters: 1 | 2 | 3 = 1): Sheet {
+  return changeParts(sheet, ids, (p) => ({ ...p, rot: (((p.rot + quarters) % 4) as QuarterTurns) }));
 }
 
 export function mirrorParts(sheet: Sheet, ids: Set<string>): Sheet {
@@ -125,7 +125,7 @@ export function mirrorParts(sheet: Sheet, ids: Set<string>): Sheet {
 export function flipDots(sheet: Sheet, ids: Set<string>): Sheet {
   return {
     ...sheet,
-    parts: sheet.parts.map((p) => (ids.has(p.id) && p.kind === 'winding' ? { ...p, dot: p.dot === 'second' ? 'first' : 'second' } : p)),
+    parts: sheet.parts.map((p) => (ids.has(p.id) && isCouplable(p) ? { ...p, dot: p.dot === 'second' ? 'first' : 'second' } : p)),
   };
 }
 
@@ -150,7 +150,7 @@ export function updateCoupling(sheet: Sheet, id: string, patch: Partial<SheetCou
 
 /** Couple the given windings with coefficient k (one coupling, named K1, K2 …). */
 export function coupleWindings(sheet: Sheet, windingIds: string[], k = 0.9): { sheet: Sheet; coupling: SheetCoupling } {
-  const coupling: SheetCoupling = { id: newId('coupling'), ref: nextRef('K', usedRefs(sheet)), windings: windingIds, by: 'k', value: k };
+  const coupling: SheetCoupling = { id: newId('coupling'), windings: windingIds, by: 'k', value: k };
   return { sheet: { ...sheet, couplings: [...sheet.couplings, coupling] }, coupling };
 }
 

@@ -5,27 +5,10 @@
  */
 import type { GraphElement, GraphModel } from './graph';
 import { newId } from './ids';
-import { PART_DEFS, pinPositions } from './parts/registry';
-import { SHEET_SCHEMA, type Part, type PartKind, type Sheet } from './sheet';
+import { PART_DEFS, PART_OF_ELEMENT, pinPositions } from './parts/registry';
+import { emptySheet, type Part, type Sheet } from './sheet';
 
-const KIND: Record<GraphElement['kind'], PartKind> = {
-  resistor: 'resistor', inductor: 'winding', capacitor: 'capacitor',
-  'voltage-source': 'vsource', 'current-source': 'isource', 'ideal-transformer': 'transformer',
-  'inductance-arm': 'arm', switch: 'resistor',
-};
 
-function valueOf(el: GraphElement): Partial<Part> {
-  switch (el.kind) {
-    case 'resistor': return { value: el.ohms };
-    case 'inductor': return { value: el.henries, dot: el.dot ?? 'first' };
-    case 'inductance-arm': return { value: el.henries };
-    case 'capacitor': return { value: el.farads };
-    case 'voltage-source':
-    case 'current-source': return { value: el.magnitude, phaseDeg: el.phaseDeg };
-    case 'ideal-transformer': return { value: el.ratio };
-    case 'switch': return { value: el.closed ? (el.onOhms ?? 0.001) : (el.offOhms ?? 1e9) };
-  }
-}
 
 /** Elements in one row; rows stack downwards so that a large model stays within the sheet's bounds. */
 export const ROW_LENGTH = 40;
@@ -42,11 +25,11 @@ export function graphToSheet(model: GraphModel, title = 'Imported graph model'):
       x = 100;
       y += ROW_HEIGHT;
     }
-    const kind = KIND[el.kind];
+    const kind = PART_OF_ELEMENT[el.kind];
     const def = PART_DEFS[kind];
-    const wide = kind === 'transformer';
+    const wide = def.pins.length > 2;
     if (wide) x += 30;
-    const part: Part = { id: newId('part'), kind, x, y, rot: wide ? 0 : 1, mirror: false, ref: el.id, ...def.defaults, ...valueOf(el) };
+    const part: Part = { id: newId('part'), kind, x, y, rot: wide ? 0 : 1, mirror: false, ref: el.id, ...def.defaults, ...def.fromElement!.values(el) };
     parts.push(part);
     idOf.set(el.id, part.id);
     pinPositions(part).forEach((pin, i) => {
@@ -64,10 +47,9 @@ export function graphToSheet(model: GraphModel, title = 'Imported graph model'):
   });
   const couplings = (model.couplings ?? []).map((c) => ({
     id: newId('coupling'),
-    ref: c.id,
     windings: c.windings.map((w) => idOf.get(w) ?? w),
     by: (c.henries !== undefined && c.k === undefined ? 'M' : 'k') as 'k' | 'M',
     value: c.henries !== undefined && c.k === undefined ? c.henries : (c.k ?? 0),
   }));
-  return { schema: SHEET_SCHEMA, title, frequencyHz: model.frequencyHz, amplitudes: model.amplitudes, parts, wires, couplings };
+  return { ...emptySheet(title), frequencyHz: model.frequencyHz, amplitudes: model.amplitudes, parts, wires, couplings };
 }

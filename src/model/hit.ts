@@ -1,5 +1,6 @@
 /** Hit testing and box selection on the sheet, in sheet coordinates. */
 import { distToSegment, inRect, rectInside, type Point, type Rect } from './geometry';
+import { couplingText } from './couplingName';
 import { dotPosition, partBox, pinPositions } from './parts/registry';
 import type { Sheet, SheetCoupling } from './sheet';
 
@@ -11,8 +12,11 @@ export type Hit =
   | { type: 'wire'; id: string; at: Point }
   | { type: 'none' };
 
-/** Where a coupling is drawn: a dashed chain between winding centres and its label spot. */
-export function couplingGeometry(sheet: Sheet, c: SheetCoupling): { centres: Point[]; label: Point } {
+/** The font size of a coupling's label, in sheet units (about 11 px at 100 % zoom). */
+export const COUPLING_TEXT = 11;
+
+/** Where a coupling is drawn: a dashed chain between winding centres, its label spot, text and box (the box holds the text with room on each side). */
+export function couplingGeometry(sheet: Sheet, c: SheetCoupling): { centres: Point[]; label: Point; text: string; box: Rect } {
   const centres: Point[] = [];
   for (const id of c.windings) {
     const p = sheet.parts.find((q) => q.id === id);
@@ -21,19 +25,16 @@ export function couplingGeometry(sheet: Sheet, c: SheetCoupling): { centres: Poi
   const n = Math.max(1, centres.length);
   // the label sits above the windings, clear of their designators
   const label = { x: centres.reduce((s, p) => s + p.x, 0) / n, y: Math.min(...centres.map((p) => p.y)) - 52 };
-  return { centres, label };
-}
-
-export function couplingLabelBox(at: Point): Rect {
-  return { x0: at.x - 34, y0: at.y - 10, x1: at.x + 34, y1: at.y + 8 };
+  const text = couplingText(sheet, c);
+  // a generous estimate of bold sans text (0.62 em a character) plus 7 units of room each side
+  const half = ([...text].length * COUPLING_TEXT * 0.62) / 2 + 7;
+  return { centres, label, text, box: { x0: label.x - half, y0: label.y - 10, x1: label.x + half, y1: label.y + 9 } };
 }
 
 export function hitTest(sheet: Sheet, p: Point, tol: number, opts: { pins?: boolean } = {}): Hit {
   for (let i = sheet.parts.length - 1; i >= 0; i--) {
-    const part = sheet.parts[i];
-    if (part.kind !== 'winding') continue;
-    const d = dotPosition(part);
-    if (d && Math.hypot(d.x - p.x, d.y - p.y) <= Math.max(5, tol)) return { type: 'dot', id: part.id };
+    const d = dotPosition(sheet.parts[i]);
+    if (d && Math.hypot(d.x - p.x, d.y - p.y) <= Math.max(5, tol)) return { type: 'dot', id: sheet.parts[i].id };
   }
   if (opts.pins) {
     for (let i = sheet.parts.length - 1; i >= 0; i--) {
@@ -45,7 +46,7 @@ export function hitTest(sheet: Sheet, p: Point, tol: number, opts: { pins?: bool
   }
   for (let i = sheet.couplings.length - 1; i >= 0; i--) {
     const g = couplingGeometry(sheet, sheet.couplings[i]);
-    if (inRect(couplingLabelBox(g.label), p)) return { type: 'coupling', id: sheet.couplings[i].id };
+    if (inRect(g.box, p)) return { type: 'coupling', id: sheet.couplings[i].id };
   }
   for (let i = sheet.parts.length - 1; i >= 0; i--) {
     if (inRect(partBox(sheet.parts[i]), p, tol * 0.5)) return { type: 'part', id: sheet.parts[i].id };

@@ -11,4 +11,4 @@ export * from './geometry';
 export { PART_DEFS, partDef, pinPositions, partBox, dotPosition } from './parts/registry';
 export type { PartDef, Prim, FieldDef } from './parts/registry';
 export { formatSI, formatAngle, formatEditable, parseSimple } from './quantity';
-export { EXAMPLES } from './examples';
+export { EXAMPLES, exampleFiles } from './examples';

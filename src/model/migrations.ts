@@ -6,6 +6,9 @@
  * v2: quarter turns `rot` and `mirror`; `amplitudes`; couplings stored only `k`.
  * v3: couplings say whether their value is k or M (`by`, `value`).
  * v4: the `arm` part kind (equivalent-circuit arm); nothing to change in older files.
+ * v5: couplings lose their own designator (`ref`; they are named by their
+ *     windings); the sheet gains `titleBlock` (ISO 7200 data fields) and
+ *     `display` (which readings the drawing shows), filled with defaults.
  */
 import { SHEET_SCHEMA_PREFIX, SHEET_VERSION } from './sheet';
 
@@ -34,6 +37,14 @@ export const migrations: Record<number, (s: Json) => Json> = {
     }),
   }),
   3: (s) => ({ ...s, schema: `${SHEET_SCHEMA_PREFIX}4` }),
+  4: (s) => ({
+    ...s,
+    schema: `${SHEET_SCHEMA_PREFIX}5`,
+    couplings: asArray(s.couplings).map((c) => {
+      const { ref: _ref, ...rest } = c as Json;
+      return rest;
+    }),
+  }),
 };
 
 function asArray(v: unknown): unknown[] {

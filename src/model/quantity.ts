@@ -53,10 +53,18 @@ export function formatEditable(v: number, unit = 'x'): string {
   return formatSI(v, '', 6).replace(' ', '');
 }
 
+/** An angle in degrees to one decimal, in the one range (-180°, 180°]: a half turn reads 180.0°, never -180.0°. */
 export function formatAngle(deg: number): string {
-  let d = ((deg + 180) % 360 + 360) % 360 - 180;
-  if (Math.abs(d) < 0.005) d = 0;
+  let d = Math.round(wrapDeg(deg) * 10) / 10;
+  if (d <= -180) d += 360;
+  if (d === 0) d = 0; // no "-0.0°"
   return `${d.toFixed(1)}°`;
+}
+
+/** An angle in degrees wrapped into (-180°, 180°]. */
+export function wrapDeg(deg: number): number {
+  const d = ((deg + 180) % 360 + 360) % 360 - 180;
+  return d === -180 ? 180 : d;
 }
 
 function stripUnit(text: string, unit: string): string {

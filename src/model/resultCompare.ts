@@ -8,12 +8,14 @@ const abs = (a: ComplexJson) => Math.hypot(a.re, a.im);
  * results share (each kind scaled by its own largest magnitude so that
  * near-zero quantities do not blow up the ratio). `skipVoltage`: elements
  * whose own voltage is not a port quantity (the arms that replace windings);
- * `reversed`: elements whose reference direction runs the other way after.
+ * `reversed`: elements whose reference direction runs the other way after;
+ * `renamed`: elements that go by another name after (a winding and the arm
+ * that takes its place).
  */
-export function portAgreement(before: SolveResult, after: SolveResult, skipVoltage: Set<string> = new Set(), reversed: Set<string> = new Set()): { maxRel: number; compared: number } {
+export function portAgreement(before: SolveResult, after: SolveResult, skipVoltage: Set<string> = new Set(), reversed: Set<string> = new Set(), renamed: Record<string, string> = {}): { maxRel: number; compared: number } {
   const pairs: { a: ComplexJson; b: ComplexJson; kind: 'v' | 'i' }[] = [];
   for (const [id, r] of Object.entries(before.elements)) {
-    const q = after.elements[id];
+    const q = after.elements[renamed[id] ?? id];
     if (!q) continue;
     if ('voltage' in r && 'voltage' in q) {
       if (!skipVoltage.has(id)) pairs.push({ a: r.voltage, b: q.voltage, kind: 'v' });

@@ -3,7 +3,7 @@ import type { Amplitudes, DotEnd } from './graph';
 import type { QuarterTurns } from './geometry';
 
 export const SHEET_SCHEMA_PREFIX = 'coilwright.sheet/';
-export const SHEET_VERSION = 4;
+export const SHEET_VERSION = 5;
 export const SHEET_SCHEMA = `${SHEET_SCHEMA_PREFIX}${SHEET_VERSION}` as const;
 
 export type PartKind =
@@ -21,9 +21,6 @@ export type PartKind =
 export const PART_KINDS: readonly PartKind[] = [
   'resistor', 'winding', 'capacitor', 'vsource', 'isource', 'transformer', 'ground', 'label', 'arm',
 ];
-
-/** The kinds offered on the parts shelf (equivalent arms come only from a T-equivalent). */
-export const SHELF_KINDS: readonly PartKind[] = PART_KINDS.filter((k) => k !== 'arm');
 
 export interface Part {
   id: string;
@@ -50,17 +47,73 @@ export interface Wire {
 
 export interface SheetCoupling {
   id: string;
-  ref: string;
-  /** part ids of the coupled windings */
+  /** part ids of the coupled windings (the coupling is named by them: k₁₂, M₁₂) */
   windings: string[];
   /** whether `value` is the coupling coefficient k or the mutual inductance M in henries */
   by: 'k' | 'M';
   value: number;
 }
 
+/**
+ * The title block's data fields, after ISO 7200 (identification, description
+ * and administration); the title itself is the sheet's `title`. All are free
+ * text and may be empty.
+ */
+export interface TitleBlock {
+  /** supplementary title */
+  subtitle: string;
+  /** legal owner */
+  owner: string;
+  /** identification number of the document */
+  number: string;
+  /** revision index */
+  revision: string;
+  /** sheet number, e.g. "1/1" */
+  sheet: string;
+  /** creator ("drawn by") */
+  drawnBy: string;
+  checkedBy: string;
+  /** approval person */
+  approvedBy: string;
+  /** document status, e.g. "draft", "released" */
+  status: string;
+}
+
+export const TITLE_FIELDS: { key: keyof TitleBlock; label: string }[] = [
+  { key: 'subtitle', label: 'Supplementary title' },
+  { key: 'number', label: 'Document number' },
+  { key: 'revision', label: 'Revision' },
+  { key: 'sheet', label: 'Sheet' },
+  { key: 'owner', label: 'Owner' },
+  { key: 'drawnBy', label: 'Drawn by' },
+  { key: 'checkedBy', label: 'Checked by' },
+  { key: 'approvedBy', label: 'Approved by' },
+  { key: 'status', label: 'Status' },
+];
+
+export const emptyTitleBlock = (): TitleBlock => ({ subtitle: '', owner: '', number: '', revision: '', sheet: '1/1', drawnBy: '', checkedBy: '', approvedBy: '', status: 'draft' });
+
+/** What the drawing shows of the solved values: which tags, by kind of reading and by part kind or part. */
+export interface DisplaySettings {
+  /** current arrows and tags beside parts */
+  partCurrents: boolean;
+  /** current arrows and tags on wires */
+  wireCurrents: boolean;
+  /** node voltage tags */
+  nodeVoltages: boolean;
+  /** part kinds whose readings are not drawn */
+  hideKinds: PartKind[];
+  /** parts (by id) whose readings are not drawn */
+  hideParts: string[];
+}
+
+export const defaultDisplay = (): DisplaySettings => ({ partCurrents: true, wireCurrents: true, nodeVoltages: true, hideKinds: [], hideParts: [] });
+
 export interface Sheet {
   schema: typeof SHEET_SCHEMA;
   title: string;
+  titleBlock: TitleBlock;
+  display: DisplaySettings;
   frequencyHz: number;
   amplitudes: Amplitudes;
   parts: Part[];
@@ -69,5 +122,5 @@ export interface Sheet {
 }
 
 export function emptySheet(title = 'Untitled sheet'): Sheet {
-  return { schema: SHEET_SCHEMA, title, frequencyHz: 50, amplitudes: 'rms', parts: [], wires: [], couplings: [] };
+  return { schema: SHEET_SCHEMA, title, titleBlock: emptyTitleBlock(), display: defaultDisplay(), frequencyHz: 50, amplitudes: 'rms', parts: [], wires: [], couplings: [] };
 }

@@ -59,15 +59,32 @@ export const wireSchema = z.object({
 
 export const couplingSchema = z.object({
   id,
-  ref: designator.default(''),
   windings: z.array(id).min(2).max(L.windingsPerCoupling, `names more than ${L.windingsPerCoupling} windings; a link couples at most ${L.windingsPerCoupling}`),
   by: z.enum(['k', 'M']).default('k'),
   value: finite,
 });
 
+/** free text of the title block, under the same character rule as the title */
+const text = z.string().superRefine(check(titleProblem)).default('');
+
+export const titleBlockSchema = z.object({
+  subtitle: text, owner: text, number: text, revision: text, sheet: z.string().default('1/1'),
+  drawnBy: text, checkedBy: text, approvedBy: text, status: z.string().default('draft'),
+});
+
+export const displaySchema = z.object({
+  partCurrents: z.boolean().default(true),
+  wireCurrents: z.boolean().default(true),
+  nodeVoltages: z.boolean().default(true),
+  hideKinds: z.array(z.enum(PART_KINDS as [string, ...string[]])).default([]),
+  hideParts: z.array(id).max(L.parts).default([]),
+});
+
 export const sheetSchema = z.object({
   schema: z.literal(SHEET_SCHEMA),
   title: z.string().superRefine(check(titleProblem)).default('Untitled sheet'),
+  titleBlock: titleBlockSchema.default(() => titleBlockSchema.parse({})),
+  display: displaySchema.default(() => displaySchema.parse({})),
   frequencyHz: finite.refine((f) => f >= 0, 'must be 0 or more'),
   amplitudes: z.enum(['rms', 'peak']).default('rms'),
   parts: z.array(partSchema).max(L.parts, tooMany('parts', L.parts)).default([]),
@@ -92,7 +109,7 @@ export function validateSheet(obj: unknown): { ok: true; sheet: Sheet } | { ok: 
   const kinds = new Map(sheet.parts.map((p) => [p.id, p.kind]));
   for (const c of sheet.couplings) {
     for (const w of c.windings) {
-      if (kinds.get(w) !== 'winding') return { ok: false, reason: `coupling ${c.ref || c.id} names ${w}, which is not a winding on this sheet` };
+      if (kinds.get(w) !== 'winding') return { ok: false, reason: `coupling ${c.id} names ${w}, which is not a winding on this sheet` };
     }
   }
   return { ok: true, sheet };

@@ -1,6 +1,7 @@
 /** Sheet → graph model, keeping the links the overlays need (element → part, node → anchor). */
 import { GRAPH_SCHEMA, type Coupling, type GraphElement, type GraphModel } from './graph';
-import { PART_DEFS } from './parts/registry';
+import { couplingGraphId } from './couplingName';
+import { PART_DEFS, isSource } from './parts/registry';
 import type { Sheet } from './sheet';
 import { deriveTopology, type Topology } from './topology';
 
@@ -33,19 +34,23 @@ export function deriveCircuit(sheet: Sheet): DerivedCircuit {
   const couplings: Coupling[] = [];
   const couplingOfId = new Map<string, string>();
   for (const c of sheet.couplings) {
-    const id = c.ref || c.id;
+    const id = couplingGraphId(sheet, c);
     const windings = c.windings.map((w) => refOfPart.get(w) ?? w);
     couplings.push(c.by === 'M' ? { id, windings, henries: c.value } : { id, windings, k: c.value });
     couplingOfId.set(id, c.id);
   }
   const notes: string[] = [];
   let ground = 'gnd';
-  if (!topology.hasGround) {
-    const firstSource = sheet.parts.findIndex((p) => p.kind === 'vsource' || p.kind === 'isource');
+  // a ground symbol that no part reaches yet (placed before the wires) grounds nothing
+  const grounded = topology.hasGround && elements.some((e) => e.nodes.includes('gnd'));
+  if (!grounded) {
+    const firstSource = sheet.parts.findIndex(isSource);
     const pick = firstSource >= 0 ? topology.pinNodes[firstSource][1] : topology.nodeNames[0];
     if (pick) {
       ground = pick;
-      notes.push(`No ground symbol on the sheet: voltages are measured from node ${pick}`);
+      notes.push(topology.hasGround
+        ? `The ground symbol is not wired to any part yet: voltages are measured from node ${pick} until it is`
+        : `No ground symbol on the sheet: voltages are measured from node ${pick}`);
     }
   }
   const model: GraphModel = {

@@ -114,7 +114,7 @@ export function deriveTopology(sheet: Sheet): Topology {
     const def = PART_DEFS[parts[i].kind];
     if (!def.netName) continue;
     const name = def.netName(parts[i]);
-    if (parts[i].kind === 'ground') hasGround = true;
+    if (def.netName?.(parts[i]) === 'gnd') hasGround = true;
     if (!name) continue;
     const item = pinBase[i];
     const other = byName.get(name);

@@ -13,6 +13,13 @@ export interface PowerRow {
   va: number;
   /** P/|S|, 1 for a resistor, 0 for an ideal reactance; null when |S| = 0 */
   powerFactor: number | null;
+  /**
+   * Whether the current lags or leads the voltage in the direction the power
+   * flows: for a load, the current taken in (lagging when Q > 0 is absorbed);
+   * for a source, the current given out (lagging when the source delivers
+   * Q > 0, i.e. when the impedance it sees is inductive). null when Q = 0.
+   */
+  sense: 'lagging' | 'leading' | null;
 }
 
 export interface PowerSummary {
@@ -35,8 +42,12 @@ export function powerSummary(model: GraphModel, result: SolveResult): PowerSumma
     if (!r) continue;
     const { watts, vars } = r.power;
     const va = Math.hypot(watts, vars);
-    rows.push({ id: el.id, kind: el.kind, watts, vars, va, powerFactor: va === 0 ? null : Math.abs(watts) / va });
-    if (sourceRole(el)) {
+    const source = sourceRole(el) !== undefined;
+    // Q given out by a source is −Q absorbed; below a billionth of |S| it is rounding
+    const q = source ? -vars : vars;
+    const sense = Math.abs(vars) <= 1e-9 * va ? null : q > 0 ? 'lagging' : 'leading';
+    rows.push({ id: el.id, kind: el.kind, watts, vars, va, powerFactor: va === 0 ? null : Math.abs(watts) / va, sense });
+    if (source) {
       dw -= watts;
       dv -= vars;
     }

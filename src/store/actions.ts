@@ -3,6 +3,7 @@ import { refProblem } from '../model/designators';
 import * as E from '../model/edits';
 import { GRID, snap, type Point } from '../model/geometry';
 import { sheetBoundsProblem } from '../model/sheetSchema';
+import { isCouplable } from '../model/parts/registry';
 import type { PartKind, Sheet } from '../model/sheet';
 import type { EditorState, EditorStore, View } from './types';
 
@@ -49,10 +50,11 @@ export function placePart(store: EditorStore, kind: PartKind, at: Point, rot?: 0
   return part.id;
 }
 
-export function rotateSelection(store: EditorStore): void {
+/** Turn the selection by `quarters` quarter turns clockwise (3: one anticlockwise). */
+export function rotateSelection(store: EditorStore, quarters: 1 | 2 | 3 = 1): void {
   const s = store.getState();
   if (!s.selection.length) return;
-  commit(store, E.rotateParts(s.sheet, selectedSet(s)));
+  commit(store, E.rotateParts(s.sheet, selectedSet(s), quarters));
 }
 
 export function mirrorSelection(store: EditorStore): void {
@@ -93,7 +95,7 @@ export function duplicateSelection(store: EditorStore): void {
 
 export function flipDotsOfSelection(store: EditorStore): void {
   const s = store.getState();
-  const ids = new Set(s.sheet.parts.filter((p) => p.kind === 'winding' && s.selection.includes(p.id)).map((p) => p.id));
+  const ids = new Set(s.sheet.parts.filter((p) => isCouplable(p) && s.selection.includes(p.id)).map((p) => p.id));
   if (!ids.size) return notify(store, 'Select a winding to swap its dot');
   commit(store, E.flipDots(s.sheet, ids));
 }
@@ -105,7 +107,7 @@ export function flipDot(store: EditorStore, partId: string): void {
 
 export function coupleSelection(store: EditorStore): void {
   const s = store.getState();
-  const ids = s.sheet.parts.filter((p) => p.kind === 'winding' && s.selection.includes(p.id)).map((p) => p.id);
+  const ids = s.sheet.parts.filter((p) => isCouplable(p) && s.selection.includes(p.id)).map((p) => p.id);
   if (ids.length < 2) return notify(store, 'Select two or more windings to link them', 'error');
   const r = E.coupleWindings(s.sheet, ids);
   commit(store, r.sheet, [r.coupling.id]);
@@ -115,8 +117,7 @@ export function renamePart(store: EditorStore, partId: string, ref: string): str
   const s = store.getState();
   const problem = refProblem(s.sheet, partId, ref);
   if (problem) return problem;
-  const isCoupling = s.sheet.couplings.some((c) => c.id === partId);
-  commit(store, isCoupling ? E.updateCoupling(s.sheet, partId, { ref: ref.trim() }) : E.updatePart(s.sheet, partId, { ref: ref.trim() }));
+  commit(store, E.updatePart(s.sheet, partId, { ref: ref.trim() }));
   return null;
 }
 

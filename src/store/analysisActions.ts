@@ -21,7 +21,7 @@ export function drawTEquivalent(store: EditorStore, couplingId: string, arms: TA
     const r = substituteT(s.sheet, couplingId, arms);
     analysisStore.setState({ substitutions: [...analysisStore.getState().substitutions, { sheetId: s.sheetId, record: r.record, check: null, before }] });
     commit(store, r.sheet, []);
-    notify(store, `${r.record.coupling.ref} drawn as its T-equivalent (Put pair back restores it)`);
+    notify(store, `The pair of ${r.record.name} drawn as its T-equivalent (Put pair back restores it)`);
   } catch (e) {
     notify(store, `Could not draw the T-equivalent: ${e instanceof Error ? e.message : String(e)}`, 'error');
   }
@@ -46,7 +46,7 @@ export function putPairBack(store: EditorStore): void {
     const restored = restorePair(store.getState().sheet, x.record);
     analysisStore.setState({ substitutions: analysisStore.getState().substitutions.filter((y) => y !== x) });
     commit(store, restored, x.record.windings.map((w) => w.part.id));
-    notify(store, `${x.record.coupling.ref} and its windings are back`);
+    notify(store, `${x.record.name} and its windings are back`);
   } catch (e) {
     notify(store, `Could not put the pair back: ${e instanceof Error ? e.message : String(e)}`, 'error');
   }

@@ -15,6 +15,7 @@ export function initialViewSlice(): Omit<EditorState, 'sheet' | 'sheetId' | 'lib
     preview: null,
     ghost: null,
     wireDraft: null,
+    pinCursor: null,
     box: null,
     notice: null,
     clipboard: null,

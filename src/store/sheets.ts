@@ -7,7 +7,7 @@ import type { EditorStore, StoredCopy } from './types';
 
 /** Shows `sheet` under `id`; `stored` when it was just read from storage (so it is not written back). */
 export function loadSheet(store: EditorStore, sheet: Sheet, id: string = newId('sheet'), stored?: StoredCopy): void {
-  store.setState({ sheet, sheetId: id, selection: [], preview: null, ghost: null, wireDraft: null, box: null, visit: null, ...(stored ? { stored } : {}) });
+  store.setState({ sheet, sheetId: id, selection: [], preview: null, ghost: null, wireDraft: null, pinCursor: null, box: null, visit: null, notice: null, ...(stored ? { stored } : {}) });
   store.temporal.getState().clear();
 }
 

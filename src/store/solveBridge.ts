@@ -16,6 +16,7 @@ import type { EditorStore } from './types';
 import type { SolveReply, SolveRequest } from '../model/solveMessages';
 import { withNameTables } from '../model/names';
 import { overlayProbe } from './probe';
+import { floorResult } from '../model/resultFloor';
 
 export interface WorkerLike {
   postMessage(msg: SolveRequest): void;
@@ -118,7 +119,7 @@ export function attachSolver(store: EditorStore, makeWorker: () => WorkerLike, w
       return;
     }
     if (r.ok) {
-      store.setState({ solve: { ...prev, status: 'solved', result: withNameTables(r.result), circuit, refusal: null, stale: false, seq: r.seq, solveMs: r.ms, restarts: 0, stuck: false } });
+      store.setState({ solve: { ...prev, status: 'solved', result: floorResult(withNameTables(r.result)), raw: withNameTables(r.result), circuit, refusal: null, stale: false, seq: r.seq, solveMs: r.ms, restarts: 0, stuck: false } });
     } else {
       store.setState({ solve: { ...prev, status: 'refused', refusal: { message: r.message, culprits: r.culprits, circuit }, stale: prev.result !== null, seq: r.seq, solveMs: r.ms, restarts: 0, stuck: false } });
     }

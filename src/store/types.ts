@@ -27,6 +27,8 @@ export interface ViewSlice {
   preview: Sheet | null;
   ghost: Ghost | null;
   wireDraft: number[] | null;
+  /** the pin the keyboard points at while wiring */
+  pinCursor: { x: number; y: number } | null;
   box: Rect | null;
   notice: { text: string; tone: 'info' | 'error' } | null;
   clipboard: Fragment | null;
@@ -47,8 +49,10 @@ export interface Refusal {
 export interface SolveSlice {
   solve: {
     status: 'idle' | 'solved' | 'refused';
-    /** the latest good result and the circuit it belongs to (kept, greyed, while refused) */
+    /** the latest good result and the circuit it belongs to (kept, greyed, while refused); rounding noise shown as 0 */
     result: SolveResult | null;
+    /** the same result exactly as solved (for the CSV files, which match the command line) */
+    raw?: SolveResult | null;
     circuit: DerivedCircuit | null;
     refusal: Refusal | null;
     stale: boolean;

@@ -1,6 +1,7 @@
 /** Commands of the analysis views: open a view, put a T-equivalent pair back. */
 import { latestSubstitution, openView, putPairBack } from '../store/analysisActions';
 import { analysisStore } from '../store/analysisStore';
+import { isCouplable } from '../model/parts/registry';
 import type { EditorState } from '../store/types';
 import type { Command } from './commands';
 
@@ -8,12 +9,12 @@ const hasLink = (s: EditorState) => s.sheet.couplings.length > 0;
 
 export const ANALYSIS_COMMANDS: Command[] = [
   {
-    id: 'analysis-compare', label: 'Compare dots', keys: ['c'],
+    id: 'analysis-compare', label: 'Compare dots', keys: ['o'],
     hint: 'Show the circuit as drawn beside the same circuit with one polarity dot flipped; the sheet changes only if you accept',
     enabled: hasLink,
     run: (h) => {
       const s = h.store.getState();
-      const w = s.sheet.parts.find((p) => p.kind === 'winding' && s.selection.includes(p.id) && s.sheet.couplings.some((c) => c.windings.includes(p.id)));
+      const w = s.sheet.parts.find((p) => isCouplable(p) && s.selection.includes(p.id) && s.sheet.couplings.some((c) => c.windings.includes(p.id)));
       if (w) analysisStore.setState({ compareWinding: w.id });
       openView('compare');
     },
@@ -24,7 +25,7 @@ export const ANALYSIS_COMMANDS: Command[] = [
     enabled: (s) => analysisStore.getState().substitutions.some((x) => x.sheetId === s.sheetId),
     run: (h) => { if (latestSubstitution(h.store)) putPairBack(h.store); },
   },
-  { id: 'analysis-sweep', label: 'Frequency sweep', keys: ['f'], hint: 'Plot chosen quantities against frequency (magnitude and phase), with markers, a cursor, CSV and a slider on one value', run: () => openView('sweep') },
+  { id: 'analysis-sweep', label: 'Sweep', keys: ['s'], hint: 'Plot chosen quantities against frequency or against a part\'s value (magnitude and phase), with peak, −3 dB and resonance markers, a cursor, CSV and a slider on one value', run: () => openView('sweep') },
   { id: 'analysis-phasors', label: 'Phasors', keys: ['g'], hint: 'Phasor diagram of chosen voltages and currents to scale, and their waveforms over two periods', run: () => openView('phasor') },
   { id: 'analysis-power', label: 'Power balance', keys: ['e'], hint: 'P, Q, |S| and power factor of every part; totals, efficiency and the Tellegen check', run: () => openView('power') },
 ];

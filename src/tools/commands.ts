@@ -2,6 +2,7 @@
 import * as A from '../store/actions';
 import { ANALYSIS_COMMANDS } from './analysisCommands';
 import type { EditorState, EditorStore } from '../store/types';
+import { PART_DEFS, SHELF_KINDS, isCouplable } from '../model/parts/registry';
 import type { PartKind } from '../model/sheet';
 import type { ToolController } from './controller';
 import type { KeyInput } from './machine';
@@ -16,6 +17,10 @@ export interface CommandHost {
   savePicture: () => void;
   newSheet: () => void;
   copyReadings: () => void;
+  /** put the keyboard into the selected item's main value (the sheet's frequency when nothing is selected) */
+  editValue?: () => void;
+  /** the searchable list of every command */
+  openCommandList?: () => void;
   /** sharing and other outputs (src/ui/share): the Share panel, a link, CSV, a canvas picture, print */
   output?: (what: 'panel' | 'link' | 'csv' | 'copy-png' | 'print') => void;
 }
@@ -31,25 +36,25 @@ export interface Command {
 }
 
 const hasSelection = (s: EditorState) => s.selection.length > 0;
-const windingsSelected = (n: number) => (s: EditorState) => s.sheet.parts.filter((p) => p.kind === 'winding' && s.selection.includes(p.id)).length >= n;
+const windingsSelected = (n: number) => (s: EditorState) => s.sheet.parts.filter((p) => isCouplable(p) && s.selection.includes(p.id)).length >= n;
 
-const place = (kind: PartKind, key: string, label: string): Command => ({
-  id: `place-${kind}`, label, keys: [key], hint: `Place ${/^[aeiou]/i.test(label) ? 'an' : 'a'} ${label.replace(/^AC /, 'AC ').replace(/^[A-Z][a-z]/, (m) => m.toLowerCase())}; click on the sheet to drop it (shift-click keeps placing, R turns, M mirrors)`,
-  run: (h) => h.tools.startPlacing(kind),
-});
+/** Placing a part of the shelf: its name and key come from its definition. */
+const place = (kind: PartKind): Command => {
+  const { label, shelfKey } = PART_DEFS[kind];
+  const name = label.replace(/^[A-Z][a-z]/, (m) => m.toLowerCase());
+  return {
+    id: `place-${kind}`, label, keys: [shelfKey],
+    hint: `Place ${/^[aeiou]/i.test(label) ? 'an' : 'a'} ${name}; click on the sheet to drop it, or Enter to drop it at a free spot (shift-click keeps placing, R turns, M mirrors)`,
+    run: (h) => h.tools.startPlacing(kind),
+  };
+};
 
 export const COMMANDS: Command[] = [
-  { id: 'tool-pick', label: 'Pick', keys: ['v', 'escape'], hint: 'Pick, move and box-select items', run: (h) => h.tools.use('select') },
-  { id: 'tool-wire', label: 'Wire', keys: ['w'], hint: 'Draw a wire from pin to pin; click to bend, double-click or Enter to stop', run: (h) => h.tools.use('wire') },
+  { id: 'command-list', label: 'Find a command', keys: ['/'], hint: 'A list of every command: type to narrow it, Enter runs the one marked', run: (h) => h.openCommandList?.() },
+  { id: 'tool-pick', label: 'Pick', keys: ['p', 'escape'], hint: 'Pick, move and box-select items', run: (h) => h.tools.use('select') },
+  { id: 'tool-wire', label: 'Wire', keys: ['j'], hint: 'Join pins with a wire: click from pin to pin (a click bends it, double-click or Enter stops); from the keyboard, arrows or [ ] pick a pin and Enter starts and ends the wire', run: (h) => h.tools.use('wire') },
   { id: 'tool-hand', label: 'Hand', keys: ['h'], hint: 'Drag to move the view (or hold Space, or use the middle button)', run: (h) => h.tools.use('pan') },
-  place('resistor', '1', 'Resistor'),
-  place('winding', '2', 'Winding'),
-  place('capacitor', '3', 'Capacitor'),
-  place('vsource', '4', 'AC voltage source'),
-  place('isource', '5', 'AC current source'),
-  place('transformer', '6', 'Ideal transformer'),
-  place('ground', '7', 'Ground'),
-  place('label', '8', 'Node label'),
+  ...SHELF_KINDS.map(place),
   { id: 'select-next', label: 'Next item', keys: [']'], hint: 'Select the next part or link on the sheet (Shift adds it to the selection)', run: (h) => A.selectNext(h.store, 1, false) },
   { id: 'select-prev', label: 'Previous item', keys: ['['], hint: 'Select the previous part or link on the sheet', run: (h) => A.selectNext(h.store, -1, false) },
   { id: 'select-next-add', label: 'Add next item', keys: ['}'], hint: 'Add the next part or link to the selection', run: (h) => A.selectNext(h.store, 1, true) },
@@ -57,10 +62,12 @@ export const COMMANDS: Command[] = [
   { id: 'nudge-right', label: 'Nudge right', keys: ['shift+arrowright'], hint: 'Move the selection one grid step right', enabled: hasSelection, run: (h) => A.nudgeSelection(h.store, 1, 0) },
   { id: 'nudge-up', label: 'Nudge up', keys: ['shift+arrowup'], hint: 'Move the selection one grid step up', enabled: hasSelection, run: (h) => A.nudgeSelection(h.store, 0, -1) },
   { id: 'nudge-down', label: 'Nudge down', keys: ['shift+arrowdown'], hint: 'Move the selection one grid step down', enabled: hasSelection, run: (h) => A.nudgeSelection(h.store, 0, 1) },
-  { id: 'turn', label: 'Turn', keys: ['r'], hint: 'Turn the selection a quarter clockwise', enabled: hasSelection, run: (h) => A.rotateSelection(h.store) },
-  { id: 'mirror', label: 'Mirror', keys: ['m'], hint: 'Mirror the selection left to right', enabled: hasSelection, run: (h) => A.mirrorSelection(h.store) },
+  { id: 'edit-value', label: 'Edit value', keys: ['v', 'enter'], hint: "Type the selected part's main value (the sheet's frequency when nothing is selected)", run: (h) => h.editValue?.() },
+  { id: 'turn', label: 'Turn', keys: ['.'], hint: 'Turn the selection a quarter clockwise', enabled: hasSelection, run: (h) => A.rotateSelection(h.store) },
+  { id: 'turn-back', label: 'Turn back', keys: [','], hint: 'Turn the selection a quarter anticlockwise', enabled: hasSelection, run: (h) => A.rotateSelection(h.store, 3) },
+  { id: 'mirror', label: 'Flip', keys: ['f'], hint: 'Flip the selection left to right (a mirror image)', enabled: hasSelection, run: (h) => A.mirrorSelection(h.store) },
   { id: 'swap-dot', label: 'Swap dot', keys: ['d'], hint: 'Move the polarity dot of the selected windings to their other end', enabled: windingsSelected(1), run: (h) => A.flipDotsOfSelection(h.store) },
-  { id: 'link', label: 'Link windings', keys: ['k'], hint: 'Couple the selected windings magnetically (k = 0.9 to start)', enabled: windingsSelected(2), run: (h) => A.coupleSelection(h.store) },
+  { id: 'link', label: 'Couple windings', keys: ['c'], hint: 'Couple the selected windings magnetically (k = 0.9 to start)', enabled: windingsSelected(2), run: (h) => A.coupleSelection(h.store) },
   { id: 'remove', label: 'Remove', keys: ['delete', 'backspace'], hint: 'Remove the selection', enabled: hasSelection, run: (h) => A.deleteSelection(h.store) },
   { id: 'copy', label: 'Copy', keys: ['mod+c'], hint: 'Copy the selection', enabled: hasSelection, run: (h) => A.copySelection(h.store) },
   { id: 'cut', label: 'Cut', keys: ['mod+x'], hint: 'Copy the selection and remove it', enabled: hasSelection, run: (h) => { A.copySelection(h.store); A.deleteSelection(h.store); } },

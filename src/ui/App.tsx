@@ -1,6 +1,6 @@
 /** The editor's frame: top bar, shelf, sheet with its convention badge, details and readings. */
-import { useEffect, useMemo, useRef } from 'react';
-import { SheetCanvas } from '../canvas/SheetCanvas';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { SheetCanvas } from './SheetCanvas';
 import { EXAMPLES } from '../model/examples';
 import { emptySheet } from '../model/sheet';
 import { formatSI } from '../model/quantity';
@@ -13,13 +13,16 @@ import { findCommand, type CommandHost } from '../tools/commands';
 import type { ToolController } from '../tools/controller';
 import type { EditorStore } from '../store/types';
 import { CommandHostContext } from './commandHost';
+import { CommandList } from './CommandList';
+import { openView } from '../store/analysisActions';
+import { analysisStore } from '../store/analysisStore';
 import { Details } from './Details';
-import { downloadSheet, readSheetFile } from './files';
+import { downloadSheet, readSheetFile, type GraphReader } from './files';
 import { Notices } from './Notices';
 import { PartsShelf } from './PartsShelf';
 import { Readings } from './Readings';
 import { rawRows, readingsCsv } from './readings';
-import { EditorContext, useEditorState } from '../canvas/editorContext';
+import { EditorContext, useEditorState } from './editorContext';
 import { TopBar } from './TopBar';
 import { AnalysisDock, AnalysisTabs } from './analysis/AnalysisDock';
 import { CouplingInspector } from './analysis/CouplingInspector';
@@ -29,15 +32,29 @@ import { ShareLayer } from './share/ShareLayer';
 import { GuardLayer } from './guard/GuardLayer';
 import { preloadExpr } from './valueEntry';
 
+/** Put the keyboard into the main value of what is selected (or the sheet's frequency), its text selected for typing over. */
+function focusMainValue(tries = 3): void {
+  const el = document.querySelector<HTMLInputElement>('[data-testid="field-value"], [data-testid="field-coupling"], [data-testid="field-name"], [data-testid="sheet-frequency"]');
+  if (!el) {
+    if (tries > 0) requestAnimationFrame(() => focusMainValue(tries - 1));
+    return;
+  }
+  el.focus();
+  el.select();
+}
+
 function isTyping(t: EventTarget | null): boolean {
   const el = t as HTMLElement | null;
   return !!el && (el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable);
 }
 
-export function App({ store, tools, storage, guard, solver }: { store: EditorStore; tools: ToolController; storage: KeyValueStorage; guard?: TabGuard; solver?: SolveBridge }) {
+export function App({ store, tools, storage, guard, solver, readGraph }: { store: EditorStore; tools: ToolController; storage: KeyValueStorage; guard?: TabGuard; solver?: SolveBridge; readGraph: GraphReader }) {
   const fileInput = useRef<HTMLInputElement>(null);
   const canvasBox = useRef<HTMLDivElement>(null);
+  const [listOpen, setListOpen] = useState(false);
   const host: CommandHost = useMemo(() => ({
+    openCommandList: () => setListOpen(true),
+    editValue: () => focusMainValue(),
     store,
     tools,
     viewport: () => ({ width: canvasBox.current?.clientWidth ?? 800, height: canvasBox.current?.clientHeight ?? 600 }),
@@ -55,7 +72,7 @@ export function App({ store, tools, storage, guard, solver }: { store: EditorSto
     copyReadings: () => {
       const s = store.getState();
       if (!s.solve.result) return notify(store, 'Nothing solved to copy yet');
-      const csv = readingsCsv(s.solve.result, rawRows(s.solve.result), s.sheet.title);
+      const csv = readingsCsv(s.solve.result, rawRows(s.solve.raw ?? s.solve.result), s.sheet.title);
       navigator.clipboard?.writeText(csv).then(
         () => notify(store, 'Readings copied as CSV'),
         () => notify(store, 'The browser did not allow copying to the clipboard', 'error'),
@@ -72,6 +89,12 @@ export function App({ store, tools, storage, guard, solver }: { store: EditorSto
   useEffect(() => {
     preloadExpr();
     const onKey = (e: KeyboardEvent) => {
+      if (e.key === 'Escape' && (e.target as HTMLElement)?.closest?.('.analysis-dock')) {
+        // Escape inside an analysis view closes it and hands the keyboard back to the drawing
+        openView(null);
+        document.querySelector<HTMLElement>('.sheet-canvas')?.focus();
+        return;
+      }
       if (isTyping(e.target)) return;
       if (e.key === ' ') {
         tools.spaceHeld = true;
@@ -80,6 +103,12 @@ export function App({ store, tools, storage, guard, solver }: { store: EditorSto
       }
       const k = { key: e.key, shift: e.shiftKey, mod: e.ctrlKey || e.metaKey, alt: e.altKey };
       if (tools.key(k)) {
+        e.preventDefault();
+        return;
+      }
+      if (e.key === 'Escape' && store.getState().tool === 'select' && analysisStore.getState().view) {
+        // nothing left to let go of on the drawing: Escape closes the open analysis view
+        openView(null);
         e.preventDefault();
         return;
       }
@@ -106,7 +135,7 @@ export function App({ store, tools, storage, guard, solver }: { store: EditorSto
     const tooBig = fileProblem(file);
     if (tooBig) return notify(store, `Could not open ${file.name}: ${tooBig}. The current sheet is unchanged.`, 'error');
     try {
-      const sheet = await readSheetFile({ text: await file.text(), name: file.name });
+      const sheet = await readSheetFile({ text: await file.text(), name: file.name }, readGraph);
       loadSheet(store, sheet);
       const v = host.viewport();
       fitView(store, v.width, v.height);
@@ -161,6 +190,7 @@ export function App({ store, tools, storage, guard, solver }: { store: EditorSto
             }}
           />
           <ShareLayer />
+          {listOpen && <CommandList onClose={() => setListOpen(false)} />}
         </div>
       </CommandHostContext.Provider>
     </EditorContext.Provider>
@@ -175,10 +205,10 @@ function FirstSteps() {
     <div className="first-steps" role="note" aria-label="How to start">
       <strong>An empty sheet.</strong>
       <ol>
-        <li>Pick a part on the left (or press <kbd>1</kbd>–<kbd>8</kbd>) and click on the sheet to drop it; <kbd>R</kbd> turns it.</li>
-        <li>Press <kbd>W</kbd> and click from pin to pin to wire them; add a ground (<kbd>7</kbd>).</li>
-        <li>Click a part to set its value on the right: <code>4.7m</code>, <code>4.7 mH</code>, <code>1/(2*pi*50)</code>.</li>
-        <li>Shift-click two windings and press <kbd>K</kbd> to link them. Currents and voltages appear on the drawing as you go.</li>
+        <li>Pick a part on the left (or press <kbd>1</kbd>–<kbd>8</kbd>) and click on the sheet to drop it (<kbd>Enter</kbd> drops it at a free spot); <kbd>.</kbd> turns it.</li>
+        <li>Press <kbd>J</kbd> and click from pin to pin to join them with a wire (or pick pins with the arrow keys and <kbd>Enter</kbd>); add a ground (<kbd>7</kbd>).</li>
+        <li>Select a part and press <kbd>V</kbd> to type its value: <code>4.7m</code>, <code>4.7 mH</code>, <code>1/(2*pi*50)</code>, a ratio <code>1:200</code>.</li>
+        <li>Shift-click two windings and press <kbd>C</kbd> to couple them. Currents and voltages appear on the drawing as you go; <kbd>/</kbd> finds any command.</li>
       </ol>
     </div>
   );

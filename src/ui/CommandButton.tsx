@@ -1,10 +1,10 @@
 /** A toolbar button bound to a command: label, key in the tooltip, disabled when unavailable. */
 import type { ReactNode } from 'react';
 import { useStore } from 'zustand';
-import { useEditor } from '../canvas/editorContext';
+import { useEditor } from './editorContext';
 import { commandById, keyLabel } from '../tools/commands';
 import { useCommandHost } from './commandHost';
-import { useEditorState } from '../canvas/editorContext';
+import { useEditorState } from './editorContext';
 
 export function CommandButton({ id, children, pressed, className }: { id: string; children?: ReactNode; pressed?: boolean; className?: string }) {
   const cmd = commandById.get(id)!;

@@ -1,13 +1,14 @@
 /** The details panel: edits the selected part or coupling, or the sheet when nothing is selected. */
 import { nameProblem, titleProblem } from '../model/names';
 import { formatEditable } from '../model/quantity';
-import { PART_DEFS } from '../model/parts/registry';
+import { couplingName } from '../model/couplingName';
+import { PART_DEFS, isCouplable } from '../model/parts/registry';
 import * as E from '../model/edits';
-import type { Part, SheetCoupling } from '../model/sheet';
+import { PART_KINDS, TITLE_FIELDS, type DisplaySettings, type Part, type SheetCoupling } from '../model/sheet';
 import { commit, renamePart } from '../store/actions';
 import { CommandButton } from './CommandButton';
 import { Field, quantity } from './Field';
-import { useEditor, useEditorState } from '../canvas/editorContext';
+import { useEditor, useEditorState } from './editorContext';
 
 export function Details() {
   const selection = useEditorState((s) => s.selection);
@@ -15,7 +16,7 @@ export function Details() {
   const items = selection.map((id) => sheet.parts.find((p) => p.id === id) ?? sheet.couplings.find((c) => c.id === id) ?? sheet.wires.find((w) => w.id === id)).filter(Boolean);
   let body;
   if (items.length === 0) body = <SheetDetails />;
-  else if (items.length > 1) body = <Several count={items.length} windings={items.filter((x) => 'kind' in x! && x.kind === 'winding').length} />;
+  else if (items.length > 1) body = <Several count={items.length} windings={items.filter((x) => 'kind' in x! && isCouplable(x as Part)).length} />;
   else if ('kind' in items[0]!) body = <PartDetails part={items[0] as Part} />;
   else if ('windings' in items[0]!) body = <CouplingDetails c={items[0] as SheetCoupling} />;
   else body = <p className="muted">A wire. Drag one of its pieces sideways to reroute it (its ends stay put); Delete removes it.</p>;
@@ -43,7 +44,7 @@ function SheetDetails() {
         return null;
       }} />
       <Field
-        label="Frequency" unit="Hz" value={formatEditable(sheet.frequencyHz, 'Hz')} testId="sheet-frequency"
+        label="Frequency" unit="Hz" value={formatEditable(sheet.frequencyHz, 'Hz')} testId="sheet-frequency" live
         hint="e.g. 50, 85k, 1/(2*pi*1e-3)"
         apply={async (t) => {
           const r = await quantity(t, 'Hz', (v) => (v >= 0 ? null : 'Frequency must be 0 Hz or more'));
@@ -52,6 +53,14 @@ function SheetDetails() {
           return null;
         }}
       />
+      <details className="tb-fields" data-testid="title-block-fields">
+        <summary>Title block (ISO 7200 fields)</summary>
+        {TITLE_FIELDS.map((f) => (
+          <Field key={f.key} label={f.label} value={sheet.titleBlock[f.key]} testId={`tb-${f.key}`}
+            apply={(t) => (t.length > 200 ? 'Keep it under 200 characters' : (set({ titleBlock: { ...store.getState().sheet.titleBlock, [f.key]: t.trim() } }), null))} />
+        ))}
+      </details>
+      <DisplayFields />
       <fieldset className="radio">
         <legend>Amplitudes</legend>
         {(['rms', 'peak'] as const).map((a) => (
@@ -61,6 +70,35 @@ function SheetDetails() {
         ))}
       </fieldset>
     </div>
+  );
+}
+
+/** What the drawing shows: readings by kind, and the part kinds whose readings are left out. */
+function DisplayFields() {
+  const { store } = useEditor();
+  const display = useEditorState((s) => s.sheet.display);
+  const set = (patch: Partial<DisplaySettings>) => {
+    const s = store.getState().sheet;
+    commit(store, { ...s, display: { ...s.display, ...patch } });
+  };
+  const kinds = PART_KINDS.filter((k) => PART_DEFS[k].toElement);
+  return (
+    <details className="tb-fields" data-testid="display-fields">
+      <summary>What the drawing shows</summary>
+      <fieldset className="radio">
+        <legend>Readings</legend>
+        <label><input type="checkbox" data-testid="show-part-currents" checked={display.partCurrents} onChange={(e) => set({ partCurrents: e.target.checked })} /> currents beside parts</label>
+        <label><input type="checkbox" data-testid="show-wire-currents" checked={display.wireCurrents} onChange={(e) => set({ wireCurrents: e.target.checked })} /> currents on wires</label>
+        <label><input type="checkbox" data-testid="show-node-voltages" checked={display.nodeVoltages} onChange={(e) => set({ nodeVoltages: e.target.checked })} /> node voltages</label>
+      </fieldset>
+      <fieldset className="radio">
+        <legend>Readings of these kinds</legend>
+        {kinds.map((k) => (
+          <label key={k}><input type="checkbox" data-testid={`show-kind-${k}`} checked={!display.hideKinds.includes(k)}
+            onChange={(e) => set({ hideKinds: e.target.checked ? display.hideKinds.filter((x) => x !== k) : [...display.hideKinds, k] })} /> {PART_DEFS[k].label}</label>
+        ))}
+      </fieldset>
+    </details>
   );
 }
 
@@ -81,13 +119,14 @@ function Several({ count, windings }: { count: number; windings: number }) {
 function PartDetails({ part }: { part: Part }) {
   const { store } = useEditor();
   const def = PART_DEFS[part.kind];
+  const sheetDisplay = useEditorState((s) => s.sheet.display);
   const patch = (p: Partial<Part>) => commit(store, E.updatePart(store.getState().sheet, part.id, p));
   return (
     <div className="form" data-testid="part-details">
       <p className="kind">{def.label}</p>
       {def.prefix && <Field label="Designator" value={part.ref} testId="field-ref" apply={(t) => renamePart(store, part.id, t)} />}
-      {part.kind === 'label' && (
-        <Field label="Node name" value={part.name ?? ''} testId="field-name" hint="Labels with the same name are one node"
+      {def.nameField && (
+        <Field label={def.nameField.label} value={part.name ?? ''} testId="field-name" hint={def.nameField.hint}
           apply={(t) => {
             const problem = nameProblem(t.trim());
             if (problem) return `A node name ${problem}`;
@@ -98,11 +137,12 @@ function PartDetails({ part }: { part: Part }) {
       {def.fields.map((f) => (
         <Field
           key={`${part.id}-${f.key}`}
+          live
           label={f.label}
           unit={f.unit}
           testId={`field-${f.key}`}
-          value={formatEditable(part[f.key] ?? 0, f.unit)}
-          hint={f.key === 'value' ? 'e.g. 4.7m, 4.7 mH, 1/(2*pi*50)' : undefined}
+          value={f.editText ? f.editText(part[f.key] ?? 0) : formatEditable(part[f.key] ?? 0, f.unit)}
+          hint={f.hint ?? (f.key === 'value' ? 'e.g. 4.7m, 4.7 mH, 1/(2*pi*50)' : undefined)}
           apply={async (t) => {
             const r = await quantity(t, f.unit, f.check);
             if ('reason' in r) return r.reason;
@@ -111,7 +151,7 @@ function PartDetails({ part }: { part: Part }) {
           }}
         />
       ))}
-      {part.kind === 'winding' && (
+      {def.couplable && (
         <div className="field">
           <span className="label">Polarity dot</span>
           <div className="row-buttons">
@@ -119,6 +159,10 @@ function PartDetails({ part }: { part: Part }) {
             <CommandButton id="swap-dot" />
           </div>
         </div>
+      )}
+      {def.toElement && (
+        <label className="check"><input type="checkbox" data-testid="show-part-readings" checked={!sheetDisplay.hideParts.includes(part.id)}
+          onChange={(e) => commit(store, { ...store.getState().sheet, display: { ...sheetDisplay, hideParts: e.target.checked ? sheetDisplay.hideParts.filter((x) => x !== part.id) : [...sheetDisplay.hideParts, part.id] } })} /> show this part's readings on the drawing</label>
       )}
       <div className="row-buttons">
         <CommandButton id="turn" />
@@ -137,8 +181,7 @@ function CouplingDetails({ c }: { c: SheetCoupling }) {
   const two = c.windings.length === 2;
   return (
     <div className="form" data-testid="coupling-details">
-      <p className="kind">Magnetic link between {names.join(', ')}</p>
-      <Field label="Designator" value={c.ref} testId="field-ref" apply={(t) => renamePart(store, c.id, t)} />
+      <p className="kind" data-testid="coupling-name">Coupling {couplingName(sheet, c, 'k')} / {couplingName(sheet, c, 'M')} between {names.join(' and ')}</p>
       {two && (
         <fieldset className="radio">
           <legend>Given as</legend>
@@ -148,7 +191,8 @@ function CouplingDetails({ c }: { c: SheetCoupling }) {
       )}
       <Field
         key={`${c.id}-${c.by}`}
-        label={c.by === 'k' ? 'k (0 to 1)' : 'M'}
+        live
+        label={c.by === 'k' ? `${couplingName(sheet, c, 'k')}, coupling coefficient (0 to 1)` : `${couplingName(sheet, c, 'M')}, mutual inductance`}
         unit={c.by === 'k' ? '' : 'H'}
         testId="field-coupling"
         value={formatEditable(c.value, c.by === 'k' ? '' : 'H')}

@@ -1,13 +1,15 @@
 /** The left column: tools and the shelf of parts to place. */
-import { SHELF_KINDS } from '../model/sheet';
+import { PART_DEFS, SHELF_KINDS } from '../model/parts/registry';
 import { CommandButton } from './CommandButton';
 import { PartIcon } from './icons';
-import { useEditorState } from '../canvas/editorContext';
+import { useEditorState } from './editorContext';
 
 export function PartsShelf() {
   const tool = useEditorState((s) => s.tool);
   const ghostKind = useEditorState((s) => s.ghost?.kind);
   const symbols = useEditorState((s) => s.symbols);
+  const amplitudes = useEditorState((s) => s.sheet.amplitudes);
+  const readout = useEditorState((s) => s.readout);
   return (
     <nav className="shelf" aria-label="Tools and parts">
       <h2 className="panel-title">Tools</h2>
@@ -18,11 +20,11 @@ export function PartsShelf() {
       </div>
       <h2 className="panel-title">Parts</h2>
       <div className="shelf-parts">
-        {SHELF_KINDS.map((k, i) => (
+        {SHELF_KINDS.map((k) => (
           <CommandButton key={k} id={`place-${k}`} pressed={tool === 'place' && ghostKind === k} className="part-btn">
             <PartIcon kind={k} style={symbols} />
-            <span className="part-name">{labelOf(k)}</span>
-            <kbd>{i + 1}</kbd>
+            <span className="part-name">{PART_DEFS[k].label}</span>
+            <kbd>{PART_DEFS[k].shelfKey}</kbd>
           </CommandButton>
         ))}
       </div>
@@ -47,15 +49,11 @@ export function PartsShelf() {
         <CommandButton id="pan-down">↓</CommandButton>
         <span />
       </div>
-      <div className="shelf-tools">
-        <CommandButton id="amplitudes" />
-        <CommandButton id="readout">∠ / j</CommandButton>
-        <CommandButton id="symbols">{symbols === 'iec' ? 'IEC' : 'IEEE'} symbols</CommandButton>
+      <div className="shelf-tools wide">
+        <CommandButton id="amplitudes">{amplitudes === 'rms' ? 'Amplitudes: RMS' : 'Amplitudes: peak'}</CommandButton>
+        <CommandButton id="readout">{readout === 'polar' ? 'Phasors: ∠ degrees' : 'Phasors: re + j im'}</CommandButton>
+        <CommandButton id="symbols">{symbols === 'iec' ? 'Symbols: IEC 60617' : 'Symbols: IEEE 315'}</CommandButton>
       </div>
     </nav>
   );
-}
-
-function labelOf(k: string): string {
-  return ({ resistor: 'Resistor', winding: 'Winding', capacitor: 'Capacitor', vsource: 'Voltage source', isource: 'Current source', transformer: 'Ideal transformer', ground: 'Ground', label: 'Node label' } as Record<string, string>)[k];
 }

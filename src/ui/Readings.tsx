@@ -3,8 +3,8 @@ import { useDeferredValue, useMemo, useState } from 'react';
 import { formatAngle, formatSI } from '../model/quantity';
 import { rectText } from '../model/drawLayout';
 import { CommandButton } from './CommandButton';
-import { readingRows, sortRows, type SortKey } from './readings';
-import { useEditor, useEditorState } from '../canvas/editorContext';
+import { onSheet, readingRows, sortRows, type SortKey } from './readings';
+import { useEditor, useEditorState } from './editorContext';
 
 const COLS: { key: SortKey; label: string; unit?: string }[] = [
   { key: 'name', label: 'Name' },
@@ -19,7 +19,9 @@ export function Readings() {
   const solve = useDeferredValue(useEditorState((s) => s.solve));
   const [limit, setLimit] = useState(120);
   const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: 'name', dir: 1 });
-  const rows = useMemo(() => (solve.result ? readingRows(solve.result) : []), [solve.result]);
+  const derived = useEditorState((s) => s.derived);
+  // while refused, the last good values stand in grey, but only for what is still on the sheet
+  const rows = useMemo(() => (solve.result ? onSheet(readingRows(solve.result), derived?.model ?? null) : []), [solve.result, derived]);
   const sorted = useMemo(() => {
     const nodes = sortRows(rows.filter((r) => r.what === 'node'), sort.key, sort.dir);
     const parts = sortRows(rows.filter((r) => r.what === 'part'), sort.key, sort.dir);

@@ -22,7 +22,7 @@ import { EXAMPLES } from '../model/examples';
 import { COMMANDS, keyLabel } from '../tools/commands';
 import { CommandButton } from './CommandButton';
 import { useCommandHost } from './commandHost';
-import { useEditorState } from '../canvas/editorContext';
+import { useEditorState } from './editorContext';
 import type { SheetEntry } from '../store/types';
 import { SharePanel } from './share/SharePanel';
 
@@ -73,20 +73,19 @@ export function TopBar({ onExample, onSwitch, onForget }: { onExample: (key: str
         <CommandButton id="undo" />
         <CommandButton id="redo" />
         <span className="sep" />
-        <CommandButton id="cut" />
         <CommandButton id="copy" />
         <CommandButton id="paste" />
-        <CommandButton id="select-all" />
         <span className="sep" />
         <CommandButton id="zoom-out">−</CommandButton>
         <CommandButton id="fit" />
         <CommandButton id="zoom-in">+</CommandButton>
         <span className="sep" />
-        <CommandButton id="open" />
-        <CommandButton id="save" />
-        <CommandButton id="save-picture" />
+        <CommandButton id="open">Open</CommandButton>
+        <CommandButton id="save">Save</CommandButton>
+        <CommandButton id="save-picture">SVG</CommandButton>
       </div>
       <SharePanel />
+      <CommandButton id="command-list">Commands</CommandButton>
       <KeysList />
       <div className="sheet-title" title="Sheet title (edit it in Details with nothing selected)">{title}</div>
     </header>
@@ -113,6 +112,9 @@ function KeysList() {
                 </tr>
               ))}
               <tr><th scope="row">Move the view</th><td><kbd>Space</kbd>+drag</td><td className="muted">or drag with the middle button; the wheel zooms, Shift+wheel scrolls</td></tr>
+              <tr><th scope="row">While placing</th><td><kbd>←</kbd><kbd>→</kbd><kbd>↑</kbd><kbd>↓</kbd> <kbd>Enter</kbd></td><td className="muted">the part waits at a free spot beside the last one: arrows move it a grid step (Shift: five), <kbd>.</kbd> <kbd>,</kbd> turn it, <kbd>F</kbd> flips it, Enter drops it</td></tr>
+              <tr><th scope="row">While wiring</th><td><kbd>←</kbd><kbd>→</kbd><kbd>↑</kbd><kbd>↓</kbd> <kbd>[</kbd><kbd>]</kbd> <kbd>Enter</kbd></td><td className="muted">arrows move the pin cursor to the nearest pin that way, [ and ] step through the pins; Enter starts the wire there, and Enter at another pin ends it</td></tr>
+              <tr><th scope="row">In an analysis view</th><td><kbd>Escape</kbd></td><td className="muted">closes the view and hands the keyboard back to the drawing</td></tr>
             </tbody>
           </table>
         </div>

@@ -2,7 +2,15 @@
 import { graphToSheet } from '../model/fromGraph';
 import { isGraphJson, parseSheetJson } from '../model/parseSheet';
 import { validateSheet } from '../model/sheetSchema';
+import type { GraphModel } from '../model/graph';
 import type { Sheet } from '../model/sheet';
+
+/**
+ * Reads untrusted graph-model JSON into a checked model, or throws with one
+ * line. The solver owns that check; the boot file hands it in, so the editor
+ * does not reach into the solver itself.
+ */
+export type GraphReader = (json: unknown) => Promise<GraphModel>;
 
 export function sheetFileName(sheet: Sheet): string {
   const base = sheet.title.trim().replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'sheet';
@@ -26,7 +34,7 @@ export function downloadSheet(sheet: Sheet): void {
 }
 
 /** Read the text of a chosen file as a sheet; throws an Error with a one-line message. */
-export async function readSheetFile(parse: { text: string; name: string }): Promise<Sheet> {
+export async function readSheetFile(parse: { text: string; name: string }, readGraph?: GraphReader): Promise<Sheet> {
   if (/^\s*(<\?xml|<svg|<!--)/.test(parse.text)) {
     const { svgToSheet } = await import('../export');
     return svgToSheet(parse.text);
@@ -38,8 +46,8 @@ export async function readSheetFile(parse: { text: string; name: string }): Prom
     throw new Error(`${parse.name} is not a Coilwright file: it is not valid JSON`);
   }
   if (isGraphJson(json)) {
-    const { parseGraphModel } = await import('../solver');
-    const model = parseGraphModel(json);
+    if (!readGraph) throw new Error(`${parse.name} is a graph model; this reader opens sheets only`);
+    const model = await readGraph(json);
     // the title comes from the file's name, less what a title may not hold
     const title = parse.name.replace(/\.json$/i, '').replace(/[\p{Cc}\p{Cf}\p{Zl}\p{Zp}\uD800-\uDFFF]/gu, '').slice(0, 120);
     const laidOut = validateSheet(graphToSheet(model, title || 'Imported graph model'));

@@ -1,7 +1,7 @@
-/** Small SVG pictures of parts for the shelf, drawn from the same primitives as the canvas. */
-import { PART_DEFS } from '../model/parts/registry';
+/** Small SVG pictures of parts for the shelf, drawn from the same primitives and marks as the canvas. */
+import { PART_DEFS, partMarks } from '../model/parts/registry';
 import type { Prim, SymbolStyle } from '../model/parts/types';
-import type { PartKind } from '../model/sheet';
+import type { Part, PartKind } from '../model/sheet';
 
 function primToSvg(p: Prim, i: number) {
   switch (p.t) {
@@ -21,12 +21,13 @@ function primToSvg(p: Prim, i: number) {
 
 export function PartIcon({ kind, style }: { kind: PartKind; style?: SymbolStyle }) {
   const def = PART_DEFS[kind];
-  const prims = def.draw({ id: '', kind, x: 0, y: 0, rot: 0, mirror: false, ref: '', ...def.defaults, name: 'a' }, style);
-  const vb = kind === 'transformer' ? '-44 -36 88 72' : kind === 'ground' ? '-16 -4 32 26' : kind === 'label' ? '-4 -14 40 28' : '-32 -20 64 40';
+  // a node label's icon carries no name: its flag alone says what it is
+  const part: Part = { id: '', kind, x: 0, y: 0, rot: 0, mirror: false, ref: '', ...def.defaults, name: '' };
+  const { x0, y0, x1, y1 } = def.icon.box;
   return (
-    <svg viewBox={vb} width="34" height="22" aria-hidden="true" stroke="currentColor" strokeWidth={kind === 'transformer' ? 3 : 2.2} strokeLinecap="round" strokeLinejoin="round">
-      {prims.map(primToSvg)}
-      {kind === 'winding' && <circle cx={-24} cy={-9} r={2.6} fill="currentColor" />}
+    <svg viewBox={`${x0} ${y0} ${x1 - x0} ${y1 - y0}`} width="34" height="22" aria-hidden="true" stroke="currentColor" strokeWidth={def.icon.stroke} strokeLinecap="round" strokeLinejoin="round">
+      {def.draw(part, style).map(primToSvg)}
+      {partMarks(part).map((m, i) => (m.t === 'dot' ? <circle key={`m${i}`} cx={m.x} cy={m.y} r={m.r} fill="currentColor" stroke="none" /> : null))}
     </svg>
   );
 }

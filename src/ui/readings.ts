@@ -1,6 +1,6 @@
 /** The readings table as plain rows (for the panel and for CSV), from a solve result. */
 import { csvComment, csvField } from '../export/csvText';
-import type { ComplexJson, SolveResult } from '../model/graph';
+import type { ComplexJson, GraphModel, SolveResult } from '../model/graph';
 import { angleDeg, mag } from '../model/phasor';
 
 export interface ReadingRow {
@@ -56,6 +56,14 @@ export function rawRows(result: SolveResult): ReadingRow[] {
     }
   }
   return rows;
+}
+
+/** The rows whose part or node is still in `model` (all of them without one). */
+export function onSheet(rows: ReadingRow[], model: GraphModel | null): ReadingRow[] {
+  if (!model) return rows;
+  const ids = new Set(model.elements.map((e) => e.id));
+  const nodes = new Set(model.elements.flatMap((e) => e.nodes));
+  return rows.filter((r) => (r.what === 'node' ? nodes.has(r.name) : ids.has(r.name.replace(/ (primary|secondary)$/, ''))));
 }
 
 export type SortKey = keyof ReadingRow;

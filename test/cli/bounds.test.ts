@@ -190,7 +190,7 @@ describe('the command line says what it accepts', () => {
       expect(r.stdout).toBe('');
       expect(oneCleanLine(r)).toMatch(re);
     }
-    const ok = run(['sweep', wireless, '--from', '8.5e4', '--to', '85000', '--points', '2', '--probe', 'a']);
+    const ok = run(['sweep', wireless, '--from', '8.5e4', '--to', '85000', '--points', '2', '--probe', 'Rbat']);
     expect(ok.status).toBe(0);
     expect(JSON.parse(ok.stdout).frequenciesHz).toEqual([85000, 85000]);
   });

@@ -42,7 +42,7 @@ const transformer = parseGraphModel(model(50, [
 describe('the streamed sweep JSON', () => {
   const cases: [string, GraphModel, number[], string[] | undefined][] = [
     ['every quantity of the wireless pair', wireless, frequencyGrid(60e3, 110e3, 23, true), undefined],
-    ['a probe of one node and one element', wireless, frequencyGrid(60e3, 110e3, 10, false), ['a', 'Rbat']],
+    ['a probe of one node and one element', wireless, frequencyGrid(60e3, 110e3, 10, false), ['n1', 'Rbat']],
     ['a transformer, peak amplitudes, a warning', transformer, [1, 50, 1e4, 2e5, 3e6], undefined],
     ['an element and no node', transformer, [50], ['T1']],
     ['a node and no element', transformer, [50, 60], ['s']],

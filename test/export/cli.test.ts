@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { bundleCli, root } from '../cli/bundle';
 import { svgToSheet, xmlProblem } from '../../src/export';
 import { parseSheetText } from '../../src/model';
-import { tableRows } from './svgText';
+import { tableRows, texts } from './svgText';
 
 /**
  * `svg FILE` through the command line as a script would call it: the example
@@ -59,10 +59,10 @@ describe('coilwright svg', () => {
     const file = join(sheets, 'isolation-transformer-230v.json');
     const solved = JSON.parse(run(['solve', file]).stdout);
     const rows = tableRows(run(['svg', file]).stdout);
-    const r3 = solved.elements.R3;
+    const r3 = solved.elements.Rload;
     const m = Math.hypot(r3.current.re, r3.current.im);
-    // |I(R3)| from solve, to the four figures the sheet prints
-    expect(rows.find((r) => r.name === 'R3')!.cells.i.startsWith(`${Number(m.toPrecision(4))} A ∠`)).toBe(true);
+    // |I(Rload)| from solve, to the four figures the sheet prints
+    expect(rows.find((r) => r.name === 'Rload')!.cells.i.startsWith(`${Number(m.toPrecision(4))} A ∠`)).toBe(true);
   });
 
   it('lays out a graph model file, its own ground the reference', () => {
@@ -75,7 +75,8 @@ describe('coilwright svg', () => {
     // every element of the model has its row, the reference node none (it is 0 V by definition)
     for (const el of model.elements) expect(names).toContain(el.id);
     expect(names).not.toContain(model.ground);
-    expect(r.stdout).toContain(`node voltages to ${model.ground};`);
+    // the floating secondary is measured from its own reference, and the sheet says so
+    expect(texts(r.stdout).join(' ')).toContain(`node voltages to ${model.ground} (in each isolated section, to its own reference node: see the notes);`);
   });
 
   it('refuses a file that is not JSON: exit 1, one line, nothing on standard output', () => {
@@ -98,13 +99,13 @@ describe('coilwright svg', () => {
 
   it('refuses a sheet whose model is refused, naming the element, as solve does', () => {
     const s = JSON.parse(readFileSync(join(sheets, 'isolation-transformer-230v.json'), 'utf8'));
-    s.parts.find((p: { ref: string }) => p.ref === 'R3').value = 0;
+    s.parts.find((p: { ref: string }) => p.ref === 'Rload').value = 0;
     const file = fileWith(JSON.stringify(s));
     const svg = run(['svg', file]);
     const solve = run(['solve', file]);
     expect(svg.status).toBe(1);
     expect(svg.stdout).toBe('');
-    expect(svg.stderr).toMatch(/"R3".*ohms must be greater than 0/); // zero resistance is refused (contract)
+    expect(svg.stderr).toMatch(/"Rload".*ohms must be greater than 0/); // zero resistance is refused (contract)
     expect(svg.stderr).toBe(solve.stderr);
   });
 });

@@ -25,7 +25,7 @@ describe('export with arbitrary user text', () => {
         const l2 = b.part('winding', `${ref}b`, 350, 200, { value: 0.1, rot: 3, mirror: true });
         b.part('label', '', 250, 120, { name });
         b.wire(b.pin(v, 0), at(100, 120), at(250, 120), b.pin(l1, 0));
-        b.couple(coupling, [l1, l2], 0.5);
+        b.couple([l1, l2], 0.5);
         const svg = sheetToSvg(b.sheet, null, { date: notes, notes, version: ref });
         expect(xmlProblem(svg)).toBeNull();
         const valid = validateSheet(b.sheet);

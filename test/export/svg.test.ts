@@ -111,11 +111,11 @@ describe('sheetToSvg on the example sheets', () => {
     const result = solved(sheet);
     const svg = sheetToSvg(sheet, result, OPTS);
     expect(svg.match(/class="polarity-dot"/g)).toHaveLength(2); // two coupled windings, one dot each
-    expect(texts(svg)).toContain('K1  k = 0.995'); // the example's coupling coefficient
-    // three junctions in the example's wiring: ground corner, and both ends of the R3 ‖ C1 pair
+    expect(texts(svg)).toContain('k(Lp,Ls) = 0.998'); // the example's coupling coefficient, named by its windings Lp and Ls
+    // three junctions in the example's wiring: the ground corner, and both ends of the Rcore ‖ Lp pair
     expect(/<g id="junctions"[^>]*>([\s\S]*?)<\/g>/.exec(svg)![1].match(/<circle/g)).toHaveLength(3);
-    // the load current tag reads the solver's R3 current
-    const r3 = result.elements.R3 as { current: ComplexJson };
+    // the load current tag reads the solver's Rload current
+    const r3 = result.elements.Rload as { current: ComplexJson };
     expect(texts(svg)).toContain(polar(r3.current, 'A'));
     expect(texts(svg)).toContain(`n1: ${polar(result.nodes.n1, 'V')}`); // 230 V source node tag
     expect(svg).toMatch(/<g id="current-arrows"[^>]*>\s*<line /);
@@ -174,12 +174,31 @@ describe('results, conventions and cautions', () => {
     const sheet = EXAMPLES.find((e) => e.key === 'wireless')!.make();
     const svg = sheetToSvg(sheet, solved(sheet), { ...OPTS, notes: 'Pad gap 150 mm.' });
     const tb = texts(svg.slice(svg.indexOf('<g id="title-block">'))).join(' | ');
-    expect(tb).toContain('Wireless charging pair, series-series');
+    expect(tb.replace(' | ', ' ')).toContain('Wireless charging pair, series-series');
     expect(tb).toContain('2026-12-01');
+    // the ISO 7200 data fields are all there, by name (empty ones as a dash)
+    for (const name of ['Document number', 'Revision', 'Sheet', 'Date of issue', 'Status', 'Owner', 'Drawn by', 'Checked by', 'Approved by']) expect(tb).toContain(name);
     expect(tb).toContain('85 kHz'); // the example's 85 kHz (field notes: vehicle wireless charging)
     expect(tb).toContain('RMS phasors; S = V·I*');
     expect(tb).toContain('Pad gap 150 mm.');
     expect(tb).toContain('Coilwright 0.1.0');
+  });
+
+  it('prints the title block and the cautions at 2.5 mm or more (the usual minimum for drawings, common practice), and the couplings with M, k and the turns ratio', () => {
+    seedIds(3);
+    const sheet = EXAMPLES.find((e) => e.key === 'isolation')!.make();
+    sheet.titleBlock = { ...sheet.titleBlock, number: 'CW-0042', revision: 'B', drawnBy: 'A. Engineer', checkedBy: 'B. Checker' };
+    const svg = sheetToSvg(sheet, solved(sheet), OPTS);
+    for (const id of ['title-block', 'cautions']) {
+      const block = /<g id="ID">([\s\S]*?)<\/g>/.exec(svg.replace('ID', ''))?.[1] ?? svg.slice(svg.indexOf(`<g id="${id}">`), svg.indexOf('</g>', svg.indexOf(`<g id="${id}">`)));
+      const sizes = [...block.matchAll(/font-size="([\d.]+)"/g)].map((m) => Number(m[1]));
+      expect(sizes.length).toBeGreaterThan(3);
+      expect(Math.min(...sizes), id).toBeGreaterThanOrEqual(2.5);
+    }
+    const tb = texts(svg.slice(svg.indexOf('<g id="title-block">')));
+    for (const v of ['CW-0042', 'B', 'A. Engineer', 'B. Checker']) expect(tb).toContain(v);
+    // k = 0.998 of two 3.2 H windings: M = 0.998 · 3.2 H = 3.194 H, turns ratio √(3.2/3.2) = 1 : 1 (field notes, M = k·√(L1·L2))
+    expect(texts(svg)).toContain('k(Lp,Ls): Lp = 3.2 H, Ls = 3.2 H, M(Lp,Ls) = 3.194 H, k(Lp,Ls) = 0.998, effective turns ratio √(Lp/Ls) = 1 : 1');
   });
 
   it('Letter paper is 279.4 mm × 215.9 mm landscape (8.5 in × 11 in), less 10.5 mm print margins', () => {
@@ -203,16 +222,16 @@ describe('results, conventions and cautions', () => {
     const sheet = EXAMPLES.find((e) => e.key === 'isolation')!.make();
     const svg = sheetToSvg(sheet, null, {
       ...OPTS,
-      unsolvedReason: 'coupling "K1": k = 1.2 must be between 0 and 1',
-      culprits: [{ kind: 'element', id: 'R3' }, { kind: 'coupling', id: 'K1' }, { kind: 'node', id: 'n5' }],
+      unsolvedReason: 'coupling "Lp~Ls": k = 1.2 must be between 0 and 1',
+      culprits: [{ kind: 'element', id: 'Rload' }, { kind: 'coupling', id: 'Lp~Ls' }, { kind: 'node', id: 'n5' }],
     });
     expect(xmlProblem(svg)).toBeNull();
     const marks = /<g id="culprits"[^>]*>([\s\S]*?)<\/g>/.exec(svg)![1];
-    expect(marks.match(/<rect class="culprit"/g)).toHaveLength(1); // R3
+    expect(marks.match(/<rect class="culprit"/g)).toHaveLength(1); // Rload
     expect(marks.match(/<circle class="culprit"/g)).toHaveLength(1); // node n5
     expect(svg).toMatch(/class="coupling culprit"/);
-    expect(svg).toMatch(/fill="#b42318"[^>]*class="ref">R3</);
-    expect(svg).not.toMatch(/fill="#b42318"[^>]*class="ref">R1</);
+    expect(svg).toMatch(/fill="#b42318"[^>]*class="ref">Rload</);
+    expect(svg).not.toMatch(/fill="#b42318"[^>]*class="ref">Rp</);
   });
 
   it('takes plots as SVG fragments and refuses unsafe or broken ones', () => {
@@ -254,7 +273,7 @@ describe('other circuits', () => {
     // V_s = V_p / ratio = 5 V; I_s = V_s / R = 1 A; I_p = I_s / ratio = 0.5 A (ideal transformer, contract);
     // the secondary current enters its dotted terminal, so it reads 1 A at 180°
     expect(rows.find((x) => x.name === 'T1 primary')!.cells).toMatchObject({ v: '10 V ∠0.0°', i: '500 mA ∠0.0°', p: '0 W' });
-    expect(rows.find((x) => x.name === 'T1 secondary')!.cells).toMatchObject({ v: '5 V ∠0.0°', i: '1 A ∠-180.0°' });
+    expect(rows.find((x) => x.name === 'T1 secondary')!.cells).toMatchObject({ v: '5 V ∠0.0°', i: '1 A ∠180.0°' });
     expect(rows.find((x) => x.name === 'R1')!.cells).toMatchObject({ i: '1 A ∠0.0°', p: '5 W' }); // P = V²/R = 25/5
     // the transformer's own current arrows: one per side
     expect(texts(svg).filter((x) => x === '500 mA ∠0.0°').length).toBeGreaterThanOrEqual(1);

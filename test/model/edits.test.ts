@@ -1,3 +1,4 @@
+import { couplingName } from '../../src/model/couplingName';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { refProblem } from '../../src/model/designators';
 import { coupleWindings, copyFragment, deleteItems, makePart, addParts, pasteFragment, rotateParts, mirrorParts } from '../../src/model/edits';
@@ -52,7 +53,8 @@ describe('sheet edits', () => {
     const all = new Set([...sheet.parts.map((p) => p.id), ...sheet.wires.map((w) => w.id)]);
     const r = pasteFragment(sheet, copyFragment(sheet, all), 300, 0);
     expect(r.sheet.parts.map((p) => p.ref)).toEqual(['L1', 'L2', 'L3', 'L4']);
-    expect(r.sheet.couplings.map((c) => c.ref)).toEqual(['K1', 'K2']);
+    // each pasted coupling is named by its own windings: k₁₂ and k₃₄ (no designator of its own)
+    expect(r.sheet.couplings.map((c) => couplingName(r.sheet, c))).toEqual(['k₁₂', 'k₃₄']);
     expect(r.sheet.couplings[1].windings).toEqual(r.sheet.parts.slice(2).map((p) => p.id));
     expect(new Set(r.sheet.parts.map((p) => p.id)).size).toBe(4);
   });

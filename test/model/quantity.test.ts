@@ -30,9 +30,24 @@ describe('value entry', () => {
   it('refuses what is not a number, with a reason', () => {
     const r = parseValue('abc', 'Ω');
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.reason).toMatch(/not a number or expression/);
+    if (!r.ok) expect(r.reason).toBe('"abc" is not a value: "abc" is not a known name (numbers may carry a prefix like 4.7m; expressions may use pi, e, sqrt, sin, cos, tan, log, log10, exp, abs)');
     expect(parseValue('', 'Ω').ok).toBe(false);
     expect(parseValue('1/0', 'Ω').ok).toBe(false);
+  });
+
+  it('reads turns ratios as the trade writes them, and never shows the expression library\'s own text', () => {
+    expect(ok('1:200', '')).toBeCloseTo(1 / 200, 15); // a 1:200 current transformer: primary turns over secondary turns
+    expect(ok('1000:5', '')).toBe(200);
+    expect(ok('2.5:1', '')).toBe(2.5);
+    expect(ok('1 : 200', '')).toBeCloseTo(0.005, 15);
+    for (const bad of ['1:0', '1:2:3', 'n:1', '1:', '2*(3', 'x+1']) {
+      const r = parseValue(bad, '');
+      expect(r.ok).toBe(false);
+      if (!r.ok) {
+        expect(r.reason.startsWith(`"`)).toBe(true); // names the text refused
+        expect(r.reason).not.toMatch(/is not a function|Unexpected|SyntaxError|Undefined symbol|char \d/);
+      }
+    }
   });
 
   it('formats with SI prefixes', () => {
@@ -42,6 +57,12 @@ describe('value entry', () => {
     expect(formatSI(85000, 'Hz')).toBe('85 kHz');
     expect(formatAngle(-174.52)).toBe('-174.5°');
     expect(formatAngle(190)).toBe('-170.0°'); // angles wrap into (-180°, 180°]
+    // a half turn has one name, whichever side rounding leaves it on
+    expect(formatAngle(-180)).toBe('180.0°');
+    expect(formatAngle(180)).toBe('180.0°');
+    expect(formatAngle(-179.96)).toBe('180.0°');
+    expect(formatAngle(179.96)).toBe('180.0°');
+    expect(formatAngle(-0.01)).toBe('0.0°');
   });
 });
 

@@ -11,25 +11,25 @@ describe('sheetToGraph', () => {
     expect(g.frequencyHz).toBe(50); // the sheet's own frequency, mains 50 Hz (field notes)
     expect(g.ground).toBe('gnd');
     const byId = Object.fromEntries(g.elements.map((e) => [e.id, e]));
-    // wiring drawn in the example: V1+ → R1 → L1 → gnd; L2 → R2 → (R3 ‖ C1) → L2
-    expect(byId.V1.nodes).toEqual(['n1', 'gnd']);
-    expect(byId.R1.nodes).toEqual(['n1', 'n2']);
-    expect(byId.L1.nodes).toEqual(['n2', 'gnd']);
-    expect(byId.L2.nodes).toEqual(['n3', 'n4']);
-    expect(byId.R2.nodes).toEqual(['n3', 'n5']);
-    expect(byId.R3.nodes).toEqual(['n5', 'n4']);
-    expect(byId.C1.nodes).toEqual(['n5', 'n4']);
-    expect(byId.V1).toMatchObject({ kind: 'voltage-source', magnitude: 230, phaseDeg: 0 });
-    expect(byId.C1).toMatchObject({ kind: 'capacitor', farads: 10e-6 });
-    expect(g.couplings).toEqual([{ id: 'K1', windings: ['L1', 'L2'], k: 0.995 }]);
+    // wiring drawn in the example: Vmains+ → Rp → (Rcore ‖ Lp) → gnd; Ls → Rs → Rload → Ls
+    expect(byId.Vmains.nodes).toEqual(['n1', 'gnd']);
+    expect(byId.Rp.nodes).toEqual(['n1', 'n2']);
+    expect(byId.Rcore.nodes).toEqual(['n2', 'gnd']);
+    expect(byId.Lp.nodes).toEqual(['n2', 'gnd']);
+    expect(byId.Ls.nodes).toEqual(['n3', 'n4']);
+    expect(byId.Rs.nodes).toEqual(['n3', 'n5']);
+    expect(byId.Rload.nodes).toEqual(['n5', 'n4']);
+    expect(byId.Vmains).toMatchObject({ kind: 'voltage-source', magnitude: 230, phaseDeg: 0 });
+    expect(byId.Rload).toMatchObject({ kind: 'resistor', ohms: 105.8 });
+    expect(g.couplings).toEqual([{ id: 'Lp~Ls', windings: ['Lp', 'Ls'], k: 0.998 }]); // named by its windings
   });
 
   it('joins node labels and several grounds by name', () => {
     const g = sheetToGraph(currentTransformerSheet());
     const byId = Object.fromEntries(g.elements.map((e) => [e.id, e]));
-    expect(byId.R2.nodes).toEqual(['burden', 'gnd']); // label "burden" on the burden's top wire
-    expect(byId.L2.nodes[1]).toBe('gnd'); // second ground symbol sits on the secondary's return wire
-    expect(byId.I1.nodes).toEqual(['gnd', 'n1']);
+    expect(byId.Rburden.nodes).toEqual(['burden', 'gnd']); // label "burden" on the burden's top wire
+    expect(byId.Lsec.nodes[1]).toBe('gnd'); // second ground symbol sits on the secondary's return wire
+    expect(byId.Iline.nodes).toEqual(['gnd', 'n1']);
   });
 
   it('every example derives without notes and with unique element ids', () => {

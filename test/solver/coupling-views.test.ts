@@ -125,6 +125,10 @@ describe('power summary', () => {
     expectClose(src.va, 500 * Math.SQRT2, 1e-10);
     expectClose(src.powerFactor!, Math.SQRT1_2, 1e-10);
     expect(p.rows.find((x) => x.id === 'Lload')!.powerFactor).toBeCloseTo(0, 12);
+    // the source sees 10 + j10 Ω, inductive: its current lags its voltage, and so does the load's (common practice for the words)
+    expect(src.sense).toBe('lagging');
+    expect(p.rows.find((x) => x.id === 'Lload')!.sense).toBe('lagging');
+    expect(p.rows.find((x) => x.id === 'Rload')!.sense).toBeNull();
     // efficiency into Rload: 9/10 of the real power
     expectClose(efficiency(r, 'V1', 'Rload')!, 0.9, 1e-10);
     expect(p.tellegen.relative).toBeLessThan(1e-12);

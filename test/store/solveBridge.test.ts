@@ -56,12 +56,12 @@ describe('solve bridge', () => {
     attachSolver(store, () => { const w = new FakeWorker(); workers.push(w); return w; });
     workers[0].answer(1, 50);
     commit(store, { ...store.getState().sheet, frequencyHz: 60 });
-    workers[0].onmessage!({ data: { seq: 2, ok: false, message: 'coupling "K1": M too large', culprits: [{ kind: 'coupling', id: 'K1' }], ms: 1, at: 0 } } as MessageEvent<SolveReply>);
+    workers[0].onmessage!({ data: { seq: 2, ok: false, message: 'coupling "Lp~Ls": M too large', culprits: [{ kind: 'coupling', id: 'Lp~Ls' }], ms: 1, at: 0 } } as MessageEvent<SolveReply>);
     const s = store.getState().solve;
     expect(s).toMatchObject({ status: 'refused', stale: true });
     expect(s.result?.frequencyHz).toBe(50);
-    expect(s.refusal?.message).toBe('coupling "K1": M too large');
-    expect(s.refusal?.circuit?.couplingOfId.get('K1')).toBe(store.getState().sheet.couplings[0].id);
+    expect(s.refusal?.message).toBe('coupling "Lp~Ls": M too large');
+    expect(s.refusal?.circuit?.couplingOfId.get('Lp~Ls')).toBe(store.getState().sheet.couplings[0].id);
   });
 });
 

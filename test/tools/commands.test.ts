@@ -24,7 +24,9 @@ describe('commands as data', () => {
     expect(chordOf(key('Z', { mod: true, shift: true }))).toBe('mod+shift+z');
     expect(chordOf(key('ArrowLeft', { shift: true }))).toBe('shift+arrowleft');
     expect(chordOf(key('+', { shift: true }))).toBe('+');
-    expect(findCommand(key('k'))?.id).toBe('link');
+    expect(findCommand(key('c'))?.id).toBe('link'); // C couples the selected windings
+    expect(findCommand(key('/'))?.id).toBe('command-list');
+    expect(findCommand(key('.'))?.id).toBe('turn');
     expect(findCommand(key('Delete'))?.id).toBe('remove');
     expect(keyLabel('mod+shift+z')).toBe('Ctrl+Shift+Z');
     expect(keyLabel('+')).toBe('+');
@@ -49,6 +51,6 @@ describe('keyboard-only editing', () => {
     tools.startPlacing('capacitor');
     expect(tools.key(key('Enter'))).toBe(true);
     const dropped = store.getState().sheet.parts.at(-1)!;
-    expect([dropped.ref, dropped.x, dropped.y]).toEqual(['C2', 200, 150]); // the middle of a 400 × 300 view
+    expect([dropped.ref, dropped.x, dropped.y]).toEqual(['C1', 200, 150]); // the middle of a 400 × 300 view, where it is free
   });
 });

@@ -4,6 +4,8 @@ import { emptySheet } from '../../src/model/sheet';
 import { deriveTopology } from '../../src/model/topology';
 import { createEditorStore } from '../../src/store/createEditorStore';
 import { ToolController } from '../../src/tools/controller';
+import { partBox } from '../../src/model/parts/registry';
+import { placePart } from '../../src/store/actions';
 import { at, key } from './helpers';
 
 function setup() {
@@ -24,7 +26,7 @@ describe('place tool', () => {
     expect(tools.place.trail).toEqual(['idle', 'placing', 'placed', 'idle']);
     expect(store.getState().tool).toBe('select');
     tools.startPlacing('resistor');
-    tools.key(key('r')); // turn the ghost before dropping it
+    tools.key(key('.')); // turn the ghost before dropping it
     tools.down(at(300, 200));
     const parts = store.getState().sheet.parts;
     expect(parts.map((p) => [p.ref, p.x, p.y, p.rot])).toEqual([['R1', 100, 100, 0], ['R2', 300, 200, 1]]);
@@ -73,5 +75,59 @@ describe('wire tool', () => {
     expect(store.getState().sheet.wires[0].pts).toEqual([0, 0, 100, 0, 100, 80]);
     const t = deriveTopology(store.getState().sheet);
     expect(t.openEnds).toHaveLength(2);
+  });
+});
+
+describe('keyboard placing and wiring', () => {
+  beforeEach(() => seedIds(9));
+
+  it('drops each new part at a free spot beside the last one, never on top of it', () => {
+    const { store, tools } = setup();
+    tools.place.viewport = () => ({ width: 400, height: 300 });
+    for (const kind of ['vsource', 'winding', 'winding', 'resistor'] as const) {
+      tools.startPlacing(kind);
+      tools.key(key('Enter'));
+    }
+    const parts = store.getState().sheet.parts;
+    expect(parts.map((p) => p.ref)).toEqual(['V1', 'L1', 'L2', 'R1']);
+    // no two boxes overlap (a geometric invariant), and each new part stands to the right of the one before
+    const boxes = parts.map(partBox);
+    for (let i = 0; i < boxes.length; i++) for (let j = i + 1; j < boxes.length; j++) {
+      const a = boxes[i], b = boxes[j];
+      expect(a.x1 <= b.x0 || b.x1 <= a.x0 || a.y1 <= b.y0 || b.y1 <= a.y0, `${parts[i].ref} and ${parts[j].ref}`).toBe(true);
+    }
+    for (let i = 1; i < parts.length; i++) expect(parts[i].x).toBeGreaterThan(parts[i - 1].x);
+    expect(parts[0]).toMatchObject({ x: 200, y: 150 }); // the first goes to the middle of the 400 × 300 view
+  });
+
+  it('moves the waiting part with the arrow keys before Enter drops it', () => {
+    const { store, tools } = setup();
+    tools.place.viewport = () => ({ width: 400, height: 300 });
+    tools.startPlacing('capacitor');
+    tools.key(key('ArrowDown'));
+    tools.key(key('ArrowRight', { shift: true }));
+    tools.key(key('Enter'));
+    expect(store.getState().sheet.parts[0]).toMatchObject({ x: 250, y: 160 }); // one step down, five steps right (10-unit grid)
+  });
+
+  it('wires pin to pin from the keyboard: pick a pin, Enter, pick the target pin, Enter', () => {
+    const { store, tools } = setup();
+    placePart(store, 'resistor', { x: 100, y: 100 });
+    placePart(store, 'resistor', { x: 300, y: 200 });
+    tools.use('wire');
+    tools.key(key(']')); // the first pin in sheet order: R1's left pin
+    expect(store.getState().pinCursor).toEqual({ x: 70, y: 100 });
+    tools.key(key('ArrowRight')); // the nearest pin to the right: R1's right pin
+    expect(store.getState().pinCursor).toEqual({ x: 130, y: 100 });
+    tools.key(key('Enter'));
+    expect(tools.wire.state).toBe('drawing');
+    tools.key(key('ArrowRight')); // R2's left pin, down and to the right
+    expect(store.getState().pinCursor).toEqual({ x: 270, y: 200 });
+    tools.key(key('Enter'));
+    expect(tools.wire.state).toBe('idle');
+    const wires = store.getState().sheet.wires;
+    expect(wires).toHaveLength(1);
+    expect(wires[0].pts).toEqual([130, 100, 270, 100, 270, 200]); // an L-shaped route, first along the longer axis
+    expect(deriveTopology(store.getState().sheet).openEnds).toHaveLength(0);
   });
 });

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { GraphModel, SolveResult } from '../../src/model/graph';
-import { cautionsFor } from '../../src/model/cautions';
+import { cautionsFor, openSecondaries } from '../../src/model/cautions';
+import { floorResult } from '../../src/model/resultFloor';
+import { isolatedText } from '../../src/ui/Notices';
 import { rawRows, readingRows, readingsCsv, sortRows } from '../../src/ui/readings';
 
 const model = (f = 50): GraphModel => ({
@@ -54,5 +56,45 @@ describe('readings', () => {
     const hostile = readingsCsv(result(36, 0.5), rawRows(result(36, 0.5)).map((r) => ({ ...r, name: `=${r.name}` })), 'Bench,=1+1');
     expect(hostile.split('\n')[0]).toBe('# Coilwright readings,"Bench,=1+1"');
     expect(hostile).toContain(`"'=L2","part"`);
+  });
+});
+
+describe('hazards and notices said of the sheet', () => {
+  const ct = (burden: boolean): GraphModel => ({
+    schema: 'coilwright.graph/1', frequencyHz: 50, amplitudes: 'rms', ground: 'gnd',
+    elements: [
+      { id: 'I1', kind: 'current-source', nodes: ['gnd', 'a'], magnitude: 100, phaseDeg: 0 },
+      { id: 'T1', kind: 'ideal-transformer', nodes: ['a', 'gnd', 's', 'gnd'], ratio: 1 / 200 },
+      ...(burden ? [{ id: 'R1', kind: 'resistor' as const, nodes: ['s', 'gnd'] as [string, string], ohms: 1 }] : []),
+    ],
+  });
+
+  it('name an open secondary of a current-driven ideal transformer, pointing at it (common practice: never open a CT secondary)', () => {
+    expect(openSecondaries(ct(true))).toEqual([]);
+    const c = openSecondaries(ct(false));
+    expect(c.map((x) => [x.kind, x.target])).toEqual([['open-secondary', { kind: 'element', id: 'T1' }]]);
+    expect(c[0].text).toMatch(/open current-transformer secondary.*dangerous voltage/);
+    expect(c[0].text).toMatch(/local codes and licensed practice/);
+  });
+
+  it('give voltages in the number format of everything else, and say what they are about', () => {
+    const c = cautionsFor(model(), result(15700, 0));
+    expect(c.find((x) => x.kind === 'elv')!.text).toMatch(/^node b reaches 15\.7 kV RMS/); // not "1.57e+4 V"
+    expect(c.find((x) => x.kind === 'open-winding')!.target).toEqual({ kind: 'element', id: 'L2' });
+  });
+
+  it('call an isolated section by what it is, without the solver\'s prefix', () => {
+    expect(isolatedText('isolated part: nodes "n3", "n4" have no galvanic path to ground "gnd"')).toBe('nodes "n3", "n4" have no galvanic path to ground "gnd"');
+  });
+
+  it('show rounding noise as 0: below 1e-10 of the largest of its kind (a relative floor; double precision leaves about 1e-16)', () => {
+    const r = result(36, 0.5);
+    r.elements.L2 = { ...r.elements.L2, current: { re: 6.661e-15, im: 0.5 } } as typeof r.elements.L2;
+    r.elements.L1 = { ...r.elements.L1, power: { watts: 0, vars: -7.994e-13 } };
+    const f = floorResult(r);
+    expect(f.elements.L2).toMatchObject({ current: { re: 0, im: 0.5 } });
+    expect(f.elements.L1.power.vars).toBe(0);
+    expect(f.elements.I1.power.vars).toBe(-40); // real values stay as they are
+    expect(f.nodes.a).toEqual({ re: 0, im: 40 });
   });
 });

@@ -3,10 +3,10 @@ import { elbow } from '../wires';
 import type { QuarterTurns, Point } from '../geometry';
 import { newId } from '../ids';
 import { PART_DEFS, pinPositions } from '../parts/registry';
-import { SHEET_SCHEMA, type Part, type PartKind, type Sheet } from '../sheet';
+import { emptySheet, type Part, type PartKind, type Sheet } from '../sheet';
 
 export function sheetBuilder(title: string, frequencyHz: number) {
-  const sheet: Sheet = { schema: SHEET_SCHEMA, title, frequencyHz, amplitudes: 'rms', parts: [], wires: [], couplings: [] };
+  const sheet: Sheet = { ...emptySheet(title), frequencyHz };
   return {
     sheet,
     part(kind: PartKind, ref: string, x: number, y: number, opts: Partial<Part> & { rot?: QuarterTurns } = {}): Part {
@@ -27,8 +27,8 @@ export function sheetBuilder(title: string, frequencyHz: number) {
       }
       sheet.wires.push({ id: newId('wire'), pts: flat });
     },
-    couple(ref: string, windings: Part[], value: number, by: 'k' | 'M' = 'k'): void {
-      sheet.couplings.push({ id: newId('coupling'), ref, windings: windings.map((w) => w.id), by, value });
+    couple(windings: Part[], value: number, by: 'k' | 'M' = 'k'): void {
+      sheet.couplings.push({ id: newId('coupling'), windings: windings.map((w) => w.id), by, value });
     },
   };
 }

@@ -1,12 +1,29 @@
+import { seedIds } from '../ids';
 import type { Sheet } from '../sheet';
+import { sheetToGraph } from '../toGraph';
 import { currentTransformerSheet } from './currentTransformer';
 import { isolationTransformerSheet } from './isolation';
 import { wirelessPairSheet } from './wireless';
 
-export interface Example { key: string; title: string; make: () => Sheet }
+export interface Example { key: string; title: string; file: string; make: () => Sheet }
 
 export const EXAMPLES: Example[] = [
-  { key: 'isolation', title: 'Bench isolation transformer (230 V, 50 Hz)', make: isolationTransformerSheet },
-  { key: 'wireless', title: 'Wireless charging pair (85 kHz)', make: wirelessPairSheet },
-  { key: 'current-transformer', title: 'Current transformer with burden', make: currentTransformerSheet },
+  { key: 'isolation', title: 'Bench isolation transformer (230 V, 50 Hz)', file: 'isolation-transformer-230v.json', make: isolationTransformerSheet },
+  { key: 'wireless', title: 'Wireless charging pair (85 kHz)', file: 'wireless-charging-85khz.json', make: wirelessPairSheet },
+  { key: 'current-transformer', title: 'Current transformer with burden', file: 'current-transformer-burden.json', make: currentTransformerSheet },
 ];
+
+/**
+ * The example files as they are written to examples/: each scenario's sheet
+ * (with fixed ids) and the graph model it derives, so the two can never drift.
+ */
+export function exampleFiles(): { path: string; json: unknown }[] {
+  return EXAMPLES.flatMap((ex, i) => {
+    seedIds(1000 + i);
+    const sheet = ex.make();
+    return [
+      { path: `examples/sheets/${ex.file}`, json: sheet },
+      { path: `examples/graphs/${ex.file}`, json: sheetToGraph(sheet) },
+    ];
+  });
+}

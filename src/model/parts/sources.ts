@@ -3,14 +3,16 @@
  * it along the leads, the current source a line across them. Pin 0 is the
  * reference terminal (+ for voltage, arrow tail for current).
  */
+import type { CurrentSourceEl, VoltageSourceEl } from '../graph';
 import { formatSI } from '../quantity';
 import { anyFinite, nonNegative, type PartDef, type Prim } from './types';
 
 const PINS = [{ x: -30, y: 0 }, { x: 30, y: 0 }];
+const ICON = { box: { x0: -32, y0: -20, x1: 32, y1: 20 }, stroke: 2.2 };
 const phase = (deg: number | undefined) => (deg ? `∠${Number(deg.toFixed(2))}°` : '');
 
 export const vsource: PartDef = {
-  kind: 'vsource', label: 'AC voltage source', prefix: 'V', pins: PINS,
+  kind: 'vsource', label: 'AC voltage source', shelfKey: '4', icon: ICON, prefix: 'V', pins: PINS, source: true,
   box: { x0: -30, y0: -16, x1: 30, y1: 16 }, defaultRot: 1,
   defaults: { value: 10, phaseDeg: 0 },
   fields: [
@@ -39,10 +41,11 @@ export const vsource: PartDef = {
   ],
   valueText: (p) => `${formatSI(p.value ?? 0, 'V', 3)}${phase(p.phaseDeg)}`,
   toElement: (p, n) => ({ id: p.ref, kind: 'voltage-source', nodes: [n[0], n[1]], magnitude: p.value ?? 0, phaseDeg: p.phaseDeg ?? 0 }),
+  fromElement: { kind: 'voltage-source', values: (el) => ({ value: (el as VoltageSourceEl).magnitude, phaseDeg: (el as VoltageSourceEl).phaseDeg }) },
 };
 
 export const isource: PartDef = {
-  kind: 'isource', label: 'AC current source', prefix: 'I', pins: PINS,
+  kind: 'isource', label: 'AC current source', shelfKey: '5', icon: ICON, prefix: 'I', pins: PINS, source: true,
   box: { x0: -30, y0: -24, x1: 30, y1: 16 }, defaultRot: 1,
   defaults: { value: 1, phaseDeg: 0 },
   fields: [
@@ -70,4 +73,5 @@ export const isource: PartDef = {
         ],
   valueText: (p) => `${formatSI(p.value ?? 0, 'A', 3)}${phase(p.phaseDeg)}`,
   toElement: (p, n) => ({ id: p.ref, kind: 'current-source', nodes: [n[0], n[1]], magnitude: p.value ?? 0, phaseDeg: p.phaseDeg ?? 0 }),
+  fromElement: { kind: 'current-source', values: (el) => ({ value: (el as CurrentSourceEl).magnitude, phaseDeg: (el as CurrentSourceEl).phaseDeg }) },
 };

@@ -1,5 +1,5 @@
 /** One definition per part kind: pins, geometry, drawing, fields and graph contribution. */
-import type { GraphElement } from '../graph';
+import type { ElementKind, GraphElement } from '../graph';
 import type { Point, QuarterTurns, Rect } from '../geometry';
 import type { Part, PartKind } from '../sheet';
 
@@ -13,7 +13,16 @@ export type Prim =
   | { t: 'rect'; x: number; y: number; w: number; h: number }
   | { t: 'circle'; x: number; y: number; r: number; fill?: boolean }
   | { t: 'arc'; x: number; y: number; r: number; a0: number; a1: number }
-  | { t: 'text'; x: number; y: number; s: string; size: number };
+  | { t: 'text'; x: number; y: number; s: string; size: number; mono?: boolean; bold?: boolean; role?: string };
+
+/**
+ * Marks drawn upright in sheet coordinates over a placed symbol: a winding's
+ * polarity dot, a node label's name. The canvas, the SVG and the shelf icons
+ * all draw them from here.
+ */
+export type Mark =
+  | { t: 'dot'; x: number; y: number; r: number; role: 'polarity-dot' }
+  | { t: 'text'; x: number; y: number; s: string; size: number; mono: boolean; bold: boolean; role: 'node-label' };
 
 export interface FieldDef {
   key: 'value' | 'phaseDeg';
@@ -21,12 +30,20 @@ export interface FieldDef {
   unit: string;
   /** reason the value is not allowed, or null */
   check: (v: number) => string | null;
+  /** the value as the entry field shows it, when not a plain SI number (a turns ratio "1:200") */
+  editText?: (v: number) => string;
+  /** what the field's hint suggests typing */
+  hint?: string;
 }
 
 export interface PartDef {
   kind: PartKind;
-  /** name on the parts shelf */
+  /** the one name of this kind: shelf, commands, details and keys list all use it */
   label: string;
+  /** the key that places it (its place on the shelf), or '' when it is not on the shelf */
+  shelfKey: string;
+  /** the shelf icon: view box in local units and stroke width */
+  icon: { box: Rect; stroke: number };
   /** designator letter, '' when the part has none */
   prefix: string;
   pins: Point[];
@@ -43,6 +60,20 @@ export interface PartDef {
   netName?: (part: Part) => string;
   /** where the polarity dot sits (local), for windings */
   dotAt?: (part: Part) => Point;
+  /** marks drawn upright over the symbol, in sheet coordinates (dot, node name) */
+  marks?: (part: Part) => Mark[];
+  /** the graph element kind that reads back as this part, and its values */
+  fromElement?: { kind: ElementKind; values: (el: GraphElement) => Partial<Part> };
+  /** the part's box when it depends on the part (a node label grows with its name) */
+  boxOf?: (part: Part) => Rect;
+  /** a winding: it can be coupled and has a polarity dot */
+  couplable?: boolean;
+  /** an independent source */
+  source?: boolean;
+  /** where the designator and value go: beside a turned part, above it, or centred below (a wide symbol) */
+  labelBelow?: boolean;
+  /** a node name this part carries, edited in the details panel */
+  nameField?: { label: string; hint: string };
 }
 
 export const positive = (what: string) => (v: number) => (v > 0 ? null : `${what} must be more than zero`);

@@ -4,7 +4,8 @@ import type { CompareAnswer } from '../../model/analysisMessages';
 import { formatSI } from '../../model/quantity';
 import { acceptDotFlip } from '../../store/analysisActions';
 import { analysisStore } from '../../store/analysisStore';
-import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { isCouplable } from '../../model/parts/registry';
+import { useEditor, useEditorState } from '../editorContext';
 import { analysisClient } from './client';
 import { cabs, polarText, rectangularText } from './format';
 import { useAnalysis, useSolved } from './useSolved';
@@ -15,7 +16,7 @@ export function ComparePanel() {
   const { store } = useEditor();
   const sheet = useEditorState((s) => s.sheet);
   const solved = useSolved();
-  const coupled = sheet.parts.filter((p) => p.kind === 'winding' && sheet.couplings.some((c) => c.windings.includes(p.id)));
+  const coupled = sheet.parts.filter((p) => isCouplable(p) && sheet.couplings.some((c) => c.windings.includes(p.id)));
   const chosen = useAnalysis((s) => s.compareWinding);
   const winding = coupled.find((p) => p.id === chosen) ?? coupled[0];
   const [answer, setAnswer] = useState<CompareAnswer | null>(null);

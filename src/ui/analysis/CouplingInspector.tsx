@@ -4,7 +4,8 @@ import type { InspectAnswer } from '../../model/analysisMessages';
 import * as E from '../../model/edits';
 import { formatEditable, formatSI } from '../../model/quantity';
 import { commit } from '../../store/actions';
-import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { couplingTitle } from '../../model/couplingName';
+import { useEditor, useEditorState } from '../editorContext';
 import { Field, quantity } from '../Field';
 import { analysisClient } from './client';
 import { polarText, rectangularText } from './format';
@@ -45,18 +46,18 @@ function Inspector({ couplingId }: { couplingId: string }) {
   }, [solved?.result, gid]);
 
   const patch = (by: 'k' | 'M', value: number) => commit(store, E.updateCoupling(store.getState().sheet, couplingId, { by, value }));
-  if (!two) return <section className="panel inspector" aria-label="Coupling inspector"><p className="muted">{c.ref} links {windings.length} windings; the inspector reads pairs.</p></section>;
+  if (!two) return <section className="panel inspector" aria-label="Coupling inspector"><p className="muted">{couplingTitle(sheet, c)} couples {windings.length} windings; the inspector reads pairs.</p></section>;
   const unit = answer?.amplitudes === 'peak' ? 'peak' : 'RMS';
   return (
     <section className="panel inspector" aria-label="Coupling inspector" data-testid="coupling-inspector">
-      <h2 className="panel-title">Coupling inspector · {c.ref}</h2>
+      <h2 className="panel-title">Coupling inspector · {couplingTitle(sheet, c)}</h2>
       <dl className="kv">
         <dt>L1 ({windings[0].ref})</dt><dd>{formatSI(l1, 'H', 4)}</dd>
         <dt>L2 ({windings[1].ref})</dt><dd>{formatSI(l2, 'H', 4)}</dd>
       </dl>
       <div className="pair-fields">
         <Field
-          label="k (coupling coefficient)" value={formatEditable(k, '')} testId="inspector-k"
+          live label="k (coupling coefficient)" value={formatEditable(k, '')} testId="inspector-k"
           hint={`0 to 1; sets M = k·√(L1·L2) = ${formatSI(m, 'H', 4)}`}
           apply={async (t) => {
             const r = await quantity(t, '', kRangeProblem);
@@ -66,7 +67,7 @@ function Inspector({ couplingId }: { couplingId: string }) {
           }}
         />
         <Field
-          label="M (mutual inductance)" unit="H" value={formatEditable(m, 'H')} testId="inspector-m"
+          live label="M (mutual inductance)" unit="H" value={formatEditable(m, 'H')} testId="inspector-m"
           hint={`0 to √(L1·L2) = ${formatSI(mMax, 'H', 4)}; sets k = M/√(L1·L2)`}
           apply={async (t) => {
             const r = await quantity(t, 'H', (v) => mRangeProblem(v, l1, l2));

@@ -35,7 +35,7 @@ export function PowerPanel() {
   const conv = answer.amplitudes === 'rms' ? 'RMS phasors: S = V·I*' : 'peak phasors: S = ½·V·I*';
   return (
     <div className="power" data-testid="power-panel">
-      <p className="muted">Absorbed power (a part that delivers shows negative P); {conv}. Power factor P/|S|, lagging when Q &gt; 0.</p>
+      <p className="muted">Absorbed power (a part that delivers shows negative P); {conv}. Power factor P/|S| in the direction the power flows: lagging when the current lags the voltage, as it does into an inductive load (Q &gt; 0 absorbed) and out of a source that sees one (Q &gt; 0 delivered).</p>
       <div className="side-by-side">
         <table className="data" data-testid="power-table">
           <thead><tr><th scope="col">Part</th><th scope="col">P</th><th scope="col">Q</th><th scope="col">|S|</th><th scope="col">pf</th></tr></thead>
@@ -46,7 +46,7 @@ export function PowerPanel() {
                 <td className="num">{formatSI(r.watts, 'W', 4)}</td>
                 <td className="num">{formatSI(r.vars, 'var', 4)}</td>
                 <td className="num">{formatSI(r.va, 'VA', 4)}</td>
-                <td className="num">{r.powerFactor === null ? '—' : `${r.powerFactor.toFixed(3)} ${Math.abs(r.vars) < 1e-12 * r.va ? '' : r.vars > 0 ? 'lagging' : 'leading'}`}</td>
+                <td className="num" data-testid={`pf-${r.id}`}>{r.powerFactor === null ? '—' : `${r.powerFactor.toFixed(3)} ${r.vars === 0 ? '' : r.sense ?? ''}`.trim()}</td>
               </tr>
             ))}
           </tbody>

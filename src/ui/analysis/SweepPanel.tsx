@@ -4,7 +4,7 @@ import { formatSI, parseSimple } from '../../model/quantity';
 import type { GraphModel } from '../../model/graph';
 import type { SweepQuantity } from '../../model/analysisMessages';
 import { analysisStore, type SliderTarget, type SweepSettings } from '../../store/analysisStore';
-import { useEditorState } from '../../canvas/editorContext';
+import { useEditorState } from '../editorContext';
 import { Plot, type PlotSeries } from './Plot';
 import { csvComment } from '../../export/csvText';
 import { csvOf, findPeaks, phaseZeros, toDb, type Marker } from './plotMath';
@@ -46,7 +46,7 @@ function namesIn(model: GraphModel, q: SweepQuantity): boolean {
 function sliderTargets(model: GraphModel): (SliderTarget & { value: number })[] {
   const out: (SliderTarget & { value: number })[] = [];
   for (const c of model.couplings ?? []) {
-    if (c.k !== undefined) out.push({ kind: 'coupling', id: c.id, label: `k of ${c.id}`, min: 0, max: 1, log: false, unit: '', value: c.k });
+    if (c.k !== undefined) out.push({ kind: 'coupling', id: c.id, label: `k of ${c.windings.join('–')}`, min: 0, max: 1, log: false, unit: '', value: c.k });
   }
   for (const e of model.elements) {
     if (e.kind === 'capacitor') out.push({ kind: 'part', id: e.id, label: `${e.id} capacitance`, min: e.farads / 10, max: e.farads * 10, log: true, unit: 'F', value: e.farads });

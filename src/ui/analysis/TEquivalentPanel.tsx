@@ -5,7 +5,8 @@ import { formatSI } from '../../model/quantity';
 import { portAgreement } from '../../model/resultCompare';
 import { drawTEquivalent, latestSubstitution } from '../../store/analysisActions';
 import { analysisStore } from '../../store/analysisStore';
-import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { couplingTitle } from '../../model/couplingName';
+import { useEditor, useEditorState } from '../editorContext';
 import { CommandButton } from '../CommandButton';
 import { analysisClient } from './client';
 import { graphCouplingId, selectedCoupling, useAnalysis, useSolved } from './useSolved';
@@ -39,7 +40,7 @@ export function TEquivalentPanel() {
   useEffect(() => {
     if (!latest || latest.check || !latest.before || !solved) return;
     if (!latest.record.added.every((id) => sheet.parts.some((p) => p.id === id))) return;
-    const check = portAgreement(latest.before, solved.result, new Set(latest.record.windings.map((w) => w.part.ref)), new Set(latest.record.reversed));
+    const check = portAgreement(latest.before, solved.result, new Set(latest.record.windings.map((w) => w.part.ref)), new Set(latest.record.reversed), latest.record.arms);
     analysisStore.setState({ substitutions: analysisStore.getState().substitutions.map((x) => (x === latest ? { ...x, check } : x)) });
   }, [latest, solved, sheet]);
   const drawn = latest && latestSubstitution(store) === latest ? latest : null;
@@ -48,7 +49,7 @@ export function TEquivalentPanel() {
     <div className="tequiv" data-testid="t-panel">
       {drawn && (
         <div className="t-drawn" data-testid="t-drawn">
-          <p><strong>{drawn.record.coupling.ref}</strong> is drawn as its T-equivalent (centre node <code>{drawn.record.centre}</code>).{' '}
+          <p>The pair of <strong>{drawn.record.name}</strong> is drawn as its T-equivalent: arms {Object.values(drawn.record.arms).join(' and ')} in series, one shunt arm, joined by wires.{' '}
             {drawn.check ? (
               <span data-testid="t-sheet-check" data-maxrel={drawn.check.maxRel}>Port voltages and currents against the pair: largest difference {(drawn.check.maxRel * 100).toExponential(1)} % over {drawn.check.compared} values — {drawn.check.maxRel < 1e-6 ? 'they agree to rounding' : 'they differ'}.</span>
             ) : <span className="muted">checking the ports…</span>}
@@ -61,7 +62,7 @@ export function TEquivalentPanel() {
           <div className="row-controls">
             <label>Pair{' '}
               <select aria-label="Linked pair for the T-equivalent" value={coupling.id} onChange={(e) => setChoice(e.target.value)}>
-                {pairs.map((c) => <option key={c.id} value={c.id}>{c.ref}: {c.windings.map((w) => sheet.parts.find((p) => p.id === w)?.ref).join(' – ')}</option>)}
+                {pairs.map((c) => <option key={c.id} value={c.id}>{couplingTitle(sheet, c)}</option>)}
               </select>
             </label>
             <button type="button" className="cmd primary" data-testid="t-draw" disabled={!answer} title="Replace the pair on the sheet with its T-equivalent drawn in place (one undo step)"

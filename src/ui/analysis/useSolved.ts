@@ -1,6 +1,7 @@
 /** The solved circuit that belongs to the sheet as it is now (null while an edit is being solved or was refused). */
 import { useStore } from 'zustand';
-import { useEditorState } from '../../canvas/editorContext';
+import { isCouplable } from '../../model/parts/registry';
+import { useEditorState } from '../editorContext';
 import type { EditorState } from '../../store/types';
 import { analysisStore, type AnalysisState } from '../../store/analysisStore';
 
@@ -30,7 +31,7 @@ export function graphCouplingId(couplingOfId: Map<string, string>, sheetId: stri
 export function selectedCoupling(s: EditorState): string | null {
   const sel = s.selection;
   if (sel.length === 1) return s.sheet.couplings.find((c) => c.id === sel[0])?.id ?? null;
-  const windings = s.sheet.parts.filter((p) => p.kind === 'winding' && sel.includes(p.id)).map((p) => p.id);
+  const windings = s.sheet.parts.filter((p) => isCouplable(p) && sel.includes(p.id)).map((p) => p.id);
   if (windings.length !== 2) return null;
   return s.sheet.couplings.find((c) => windings.every((w) => c.windings.includes(w)))?.id ?? null;
 }

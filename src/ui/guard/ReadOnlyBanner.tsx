@@ -1,5 +1,5 @@
 /** A sheet this tab shows read-only (another tab edits it): why, and the two ways on. */
-import { useEditorState } from '../../canvas/editorContext';
+import { useEditorState } from '../editorContext';
 import type { TabGuard } from '../../store/tabGuard';
 
 const WHY = {

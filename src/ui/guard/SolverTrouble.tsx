@@ -1,5 +1,5 @@
 /** The solver has stopped answering: the readings are greyed, and the editor says whether it is still trying. */
-import { useEditorState } from '../../canvas/editorContext';
+import { useEditorState } from '../editorContext';
 import type { SolveBridge } from '../../store/solveBridge';
 
 export function SolverTrouble({ solver }: { solver: SolveBridge }) {

@@ -1,5 +1,5 @@
 /** A kept sheet that could not be read: the reason, and its stored text to download (nothing of it is lost or overwritten). */
-import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { useEditor, useEditorState } from '../editorContext';
 import { download } from '../files';
 
 export function UnreadableSheetNotice() {

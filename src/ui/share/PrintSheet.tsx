@@ -7,7 +7,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { createPortal } from 'react-dom';
 import { PRINT_MARGIN_MM, type Paper } from '../../export/options';
-import { useEditor } from '../../canvas/editorContext';
+import { useEditor } from '../editorContext';
 import type { EditorStore } from '../../store/types';
 import { exportLoaded, loadExport, setPrintPreparer, svgNow } from './outputs';
 import { shareSettings } from './settings';

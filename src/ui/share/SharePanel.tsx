@@ -1,7 +1,7 @@
 /** The Share panel: the SVG sheet's paper, notes and plots; CSV, PNG and print; a link that carries the sheet. */
 import { useEffect, useRef, useSyncExternalStore } from 'react';
 import { useStore } from 'zustand';
-import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { useEditor, useEditorState } from '../editorContext';
 import { MAX_LINK_CHARS } from '../../model/link';
 import { notify } from '../../store/actions';
 import { analysisOutputs, onAnalysisOutputs } from './analysisHook';

@@ -8,7 +8,7 @@ import { useEffect } from 'react';
 import { decodeSheetPayload, linkPayload } from '../../model/link';
 import { fitView, notify } from '../../store/actions';
 import { dismissVisit, keepVisit, startVisit } from '../../store/visit';
-import { useEditor, useEditorState } from '../../canvas/editorContext';
+import { useEditor, useEditorState } from '../editorContext';
 import { useCommandHost } from '../commandHost';
 
 function clearHash(): void {

@@ -76,7 +76,7 @@ async function saveResultsCsv(store: EditorStore): Promise<void> {
   const solved = solvedNow(s);
   if (!solved) return notify(store, 'Nothing solved to write yet: the results CSV needs a solved sheet', 'error');
   const { resultsCsv } = await import('../../export/csv');
-  download(`${baseName(s.sheet)}-results.csv`, resultsCsv(solved.circuit.model, solved.result, s.sheet.title), 'text/csv');
+  download(`${baseName(s.sheet)}-results.csv`, resultsCsv(solved.circuit.model, s.solve.raw ?? solved.result, s.sheet.title), 'text/csv');
   notify(store, 'Results saved as CSV');
 }
 

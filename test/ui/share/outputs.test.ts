@@ -30,7 +30,7 @@ describe('the SVG sheet as the Share panel sets it up', () => {
     expect(svg).toMatch(/<svg [^>]*width="258.4mm" height="194.9mm"/);
     expect(svg).toContain('Bench &lt;unit&gt; &amp; "A"'); // escaped as character data (XML 1.0 §2.4)
     expect(svg).toContain('id="plot-1"');
-    expect(svg).toMatch(/class="row" data-kind="part" data-name="R1"/); // solved: the results table is there
+    expect(svg).toMatch(/class="row" data-kind="part" data-name="Rp"/); // solved: the results table is there
   });
 
   it('leaves the plots out when not wanted, and says why when a plot is refused', () => {

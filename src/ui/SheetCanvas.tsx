@@ -15,12 +15,13 @@ import { overlayDrawn, sheetProbe } from '../store/probe';
 import type { EditorState } from '../store/types';
 import type { PointerInput } from '../tools/machine';
 import { useEditor, useEditorState } from './editorContext';
-import { culpritIds, drawOverlay } from './drawOverlay';
-import { drawPrims } from './drawPrims';
-import { drawGrid, drawSheet, visibleRect } from './drawSheet';
-import { DragDrawing } from './dragDrawing';
-import { nodeNear } from './hover';
-import { THEME } from './theme';
+import { culpritIds, drawOverlay } from '../canvas/drawOverlay';
+import { drawPrims } from '../canvas/drawPrims';
+import { drawGrid, drawSheet, visibleRect } from '../canvas/drawSheet';
+import { DragDrawing } from '../canvas/dragDrawing';
+import { nodeNear } from '../canvas/hover';
+import { noticesOf } from './Notices';
+import { THEME } from '../canvas/theme';
 
 /** longest an edit waits (one frame) for its solve so both show together; the editor itself never blocks on the solver */
 const HOLD_MS = 16;
@@ -40,6 +41,8 @@ function memoOne<A, R>(f: (a: A) => R): (a: A) => R {
   };
 }
 
+const sameSet = (a: Set<string>, b: Set<string>) => a.size === b.size && [...a].every((x) => b.has(x));
+
 export function SheetCanvas() {
   const { store, tools } = useEditor();
   const host = useRef<HTMLDivElement>(null);
@@ -55,12 +58,21 @@ export function SheetCanvas() {
   const caches = useRef({
     selection: memoOne((ids: string[]) => new Set(ids)),
     topology: memoOne((sheet: Sheet): Topology => deriveTopology(sheet)),
+    hazards: memoOne((s: Pick<EditorState, 'solve' | 'derived'>) => new Set(noticesOf({ ...s, notice: null }).filter((n) => n.tone === 'hazard' && n.partId).map((n) => n.partId!))),
   }).current;
+  const hazardKey = useRef<{ solve: EditorState['solve'] | null; derived: EditorState['derived']; key: Pick<EditorState, 'solve' | 'derived'> | null }>({ solve: null, derived: null, key: null });
+  /** one object per (solve, derived) pair, so the hazard set is worked out once for each */
+  const hazardsOf = (s: EditorState) => {
+    const h = hazardKey.current;
+    if (h.solve !== s.solve || h.derived !== s.derived || !h.key) hazardKey.current = { solve: s.solve, derived: s.derived, key: { solve: s.solve, derived: s.derived } };
+    return caches.hazards(hazardKey.current.key!);
+  };
 
   /** the topology of the committed sheet (the bridge derives it on every edit); kept while a drag is shown */
   const topologyOf = (s: EditorState): Topology =>
     s.derived && s.derived.source === s.sheet ? s.derived.topology : caches.topology(s.sheet);
 
+  const drawnHazards = useRef<Set<string>>(new Set());
   const gridFunc = (ctx: Konva.Context) => drawGrid(native(ctx), store.getState().view, sizeRef.current.width, sizeRef.current.height);
 
   const dragDraw = useRef(new DragDrawing()).current;
@@ -70,10 +82,12 @@ export function SheetCanvas() {
     const s = store.getState();
     const c = native(ctx);
     const { width, height } = sizeRef.current;
+    drawnHazards.current = hazardsOf(s);
     const options = {
       selection: caches.selection(s.selection),
       topology: topologyOf(s),
       culprits: s.solve.status === 'refused' ? culpritIds(s.solve.refusal) : new Set<string>(),
+      hazards: hazardsOf(s),
       view: s.view,
       visible: visibleRect(s.view, width, height),
       style: s.symbols,
@@ -105,7 +119,7 @@ export function SheetCanvas() {
   };
 
   const uiFunc = (ctx: Konva.Context) => {
-    const { view, ghost, wireDraft: draft, box, symbols } = store.getState();
+    const { view, ghost, wireDraft: draft, box, symbols, pinCursor } = store.getState();
     const c = native(ctx);
     c.save();
     c.translate(view.x, view.y);
@@ -122,6 +136,18 @@ export function SheetCanvas() {
       c.stroke();
       c.setLineDash([]);
     }
+    if (pinCursor) {
+      // the keyboard's pin: a ring and a cross, visible on any background
+      c.strokeStyle = THEME.draft;
+      c.lineWidth = 2 / view.zoom;
+      c.beginPath();
+      c.arc(pinCursor.x, pinCursor.y, 7, 0, Math.PI * 2);
+      c.moveTo(pinCursor.x - 11, pinCursor.y);
+      c.lineTo(pinCursor.x + 11, pinCursor.y);
+      c.moveTo(pinCursor.x, pinCursor.y - 11);
+      c.lineTo(pinCursor.x, pinCursor.y + 11);
+      c.stroke();
+    }
     if (box) {
       c.fillStyle = THEME.selectFill;
       c.strokeStyle = THEME.select;
@@ -135,9 +161,18 @@ export function SheetCanvas() {
   useEffect(() => {
     const el = host.current;
     if (!el) return;
-    const ro = new ResizeObserver(() => setSize({ width: el.clientWidth, height: el.clientHeight }));
+    let last = { width: el.clientWidth, height: el.clientHeight };
+    const ro = new ResizeObserver(() => {
+      const next = { width: el.clientWidth, height: el.clientHeight };
+      if (next.width === last.width && next.height === last.height) return;
+      // the drawing stays centred where it was when a panel opens, closes or is resized
+      const v = store.getState().view;
+      if (last.width > 0 && last.height > 0) store.setState({ view: { ...v, x: v.x + (next.width - last.width) / 2, y: v.y + (next.height - last.height) / 2 } });
+      last = next;
+      setSize(next);
+    });
     ro.observe(el);
-    setSize({ width: el.clientWidth, height: el.clientHeight });
+    setSize(last);
     return () => ro.disconnect();
   }, []);
 
@@ -166,7 +201,7 @@ export function SheetCanvas() {
           clearTimeout(held);
           held = null;
           sheetLayer.current?.draw();
-        } else if (s.solve.status !== p.solve.status) sheetLayer.current?.batchDraw();
+        } else if (s.solve.status !== p.solve.status || !sameSet(hazardsOf(s), drawnHazards.current)) sheetLayer.current?.batchDraw();
         overlay.current?.draw(); // new values go on the sheet at once
       } else if (s.sheet !== p.sheet && s.preview === null && p.preview === null) {
         if (!held) held = setTimeout(drawHeld, HOLD_MS);
@@ -175,7 +210,7 @@ export function SheetCanvas() {
         if (s.sheet !== p.sheet || s.hoverNode !== p.hoverNode || s.readout !== p.readout || (s.preview === null) !== (p.preview === null)) overlay.current?.batchDraw();
       }
       if (s.selection !== p.selection) sheetLayer.current?.batchDraw();
-      if (s.ghost !== p.ghost || s.wireDraft !== p.wireDraft || s.box !== p.box) ui.current?.batchDraw();
+      if (s.ghost !== p.ghost || s.wireDraft !== p.wireDraft || s.box !== p.box || s.pinCursor !== p.pinCursor) ui.current?.batchDraw();
     });
     return () => {
       if (held) clearTimeout(held);

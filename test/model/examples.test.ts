@@ -1,0 +1,64 @@
+/**
+ * The example sheets are the one definition of each scenario: the files in
+ * examples/sheets and examples/graphs are what they write, and the README's
+ * key figures are what the app shows when it opens them (solved, and printed
+ * with the readings' own number format).
+ */
+import { readFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { formatJson } from '../../src/cli/format';
+import { EXAMPLES, exampleFiles } from '../../src/model/examples';
+import type { SolveResult, TwoTerminalResult } from '../../src/model/graph';
+import { formatSI } from '../../src/model/quantity';
+import { deriveCircuit } from '../../src/model/toGraph';
+import { efficiency, parseGraphModel, solveGraph, sourceImpedance } from '../../src/solver';
+
+const ROOT = resolve(__dirname, '../..');
+const two = (r: SolveResult, id: string) => r.elements[id] as TwoTerminalResult;
+const abs = (z: { re: number; im: number }) => Math.hypot(z.re, z.im);
+
+/** The figures of each scenario as the README states them, computed from the app's solve of the example sheet. */
+const FIGURES: Record<string, (sheet: ReturnType<(typeof EXAMPLES)[number]['make']>) => string> = {
+  isolation: (sheet) => {
+    const m = parseGraphModel(deriveCircuit(sheet).model);
+    const r = solveGraph(m);
+    const load = two(r, 'Rload');
+    return `load ${formatSI(abs(load.current), 'A', 4)}, ${formatSI(abs(load.voltage), 'V', 4)}, ${formatSI(load.power.watts, 'W', 4)}; efficiency ${(efficiency(r, 'Vmains', 'Rload')! * 100).toFixed(1)} %`;
+  },
+  wireless: (sheet) => {
+    const m = parseGraphModel(deriveCircuit(sheet).model);
+    const r = solveGraph(m);
+    const z = sourceImpedance(m, 'Vinv').z!;
+    // "resistive": the reactance is under a thousandth of the resistance
+    const resistive = Math.abs(z.im) < 1e-3 * z.re ? ' resistive' : '';
+    return `input ${formatSI(z.re, 'Ω', 3)}${resistive}; ${formatSI(two(r, 'Rbat').power.watts, 'W', 4)} into the load; efficiency ${(efficiency(r, 'Vinv', 'Rbat')! * 100).toFixed(1)} %`;
+  },
+  'current-transformer': (sheet) => {
+    const c = deriveCircuit(sheet).model;
+    const r = solveGraph(parseGraphModel(c));
+    const b = two(r, 'Rburden');
+    // the open secondary: the burden a megohm (field notes: an open CT secondary forces its current into what remains)
+    const open = solveGraph(parseGraphModel({ ...c, elements: c.elements.map((e) => (e.id === 'Rburden' ? { ...e, ohms: 1e6 } : e)) }));
+    const vOpen = abs(two(open, 'Lsec').voltage);
+    return `${formatSI(abs(b.current), 'A', 3)} and ${formatSI(abs(b.voltage), 'V', 3)} at the burden; open secondary > ${Math.floor(vOpen / 100) * 100} V`;
+  },
+};
+
+describe('example files', () => {
+  it('are exactly what the example sheets write (sheet and graph model from one definition)', () => {
+    for (const f of exampleFiles()) {
+      expect(readFileSync(join(ROOT, f.path), 'utf8'), `${f.path}: run node scripts/write-example-sheets.mjs`).toBe(formatJson(f.json) + '\n');
+    }
+  });
+
+  it('carry the README\'s key figures as the app shows them', () => {
+    const readme = readFileSync(join(ROOT, 'README.md'), 'utf8');
+    for (const ex of EXAMPLES) {
+      const row = readme.split('\n').find((l) => l.startsWith(`| \`${ex.file}\``));
+      expect(row, `README lists ${ex.file}`).toBeDefined();
+      const stated = row!.split('|').map((c) => c.trim())[3];
+      expect(stated).toBe(FIGURES[ex.key](ex.make()));
+    }
+  });
+});
