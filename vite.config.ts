@@ -7,6 +7,7 @@ export default defineConfig({
   build: { target: 'es2022', sourcemap: false },
   test: {
     include: ['test/**/*.test.ts', 'test/**/*.test.tsx'],
+    setupFiles: ['test/setup.ts'],
     environment: 'node',
     pool: 'threads',
     maxWorkers: 2,

@@ -164,6 +164,8 @@ describe('scaling: a diagonally scaled copy gives the same solution', () => {
         const a = randomSparse(n, seed, 0.3, 0.3, real);
         const b = Array.from({ length: n }, (_, i) => Math.sin(i + seed));
         const x = solveComplex(a, b);
+        // the claim is for well-conditioned A: the rare random A beyond κ₁ = 1e6 says nothing of scaling
+        if (x.lu.conditionEstimate().kappa > 1e6) return;
         const { m, d1, d2 } = scaledCopy(a, seed + 1);
         let y: { re: Float64Array; im: Float64Array };
         if (real) {
