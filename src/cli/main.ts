@@ -1,11 +1,12 @@
 import { readFileSync, statSync } from 'node:fs';
-import { parseArgs, UsageError, USAGE, type SweepCommand } from './args';
+import { parseArgs, UsageError, USAGE, type SweepCommand, type TransientCommand } from './args';
 import { loadModelText } from './load';
 import { jsonPieces } from './format';
 import { MAX_FILE_BYTES, sweepSizeProblem } from './limits';
 import { ColumnSpool, SpoolError } from './sweepSpool';
 import { sweepJsonPieces } from './sweepJson';
-import { ModelRefusal, solveGraph, sweepStream, frequencyAt, ProbeError, transferFunction, TransferUsageError } from '../solver';
+import { transientJsonPieces } from './transientJson';
+import { ModelRefusal, solveGraph, sweepStream, frequencyAt, ProbeError, transferFunction, TransferUsageError, transientStream } from '../solver';
 import type { GraphModel } from '../model/graph';
 
 /** Exit status: 0 solved, 1 the model was refused, 2 the command line is wrong, 3 the output could not be written. */
@@ -90,6 +91,31 @@ async function sweep(model: GraphModel, cmd: SweepCommand): Promise<void> {
   }
 }
 
+/** Runs the time response into a spool (memory stays one block), then writes the JSON from it. */
+async function transient(model: GraphModel, cmd: TransientCommand): Promise<void> {
+  const stream = transientStream(model, { stopS: cmd.stop, stepS: cmd.step, tolerance: cmd.tolerance, start: cmd.start }, cmd.probe);
+  const { layout } = stream;
+  const samples = Math.floor((cmd.stop / cmd.step) * (1 + 1e-12) + 1e-9) + 1;
+  const tooBig = sweepSizeProblem(samples, Math.ceil(layout.width / 2), model.elements.length);
+  if (tooBig) throw new ModelRefusal(`transient: ${tooBig.replace(/points/g, 'samples')}`, [{ kind: 'model' }]);
+  const slots = Math.max(1, Math.ceil(layout.width / 2));
+  const spool = new ColumnSpool(slots);
+  const timesS = new Float64Array(samples);
+  let count = 0;
+  try {
+    const point = new Float64Array(2 * slots);
+    const warnings = stream.run((t, values) => {
+      point.set(values);
+      spool.push(point);
+      timesS[count++] = t;
+    });
+    spool.finish();
+    await writeOut(transientJsonPieces({ timesS: timesS.subarray(0, count), layout, warnings, spool }));
+  } finally {
+    spool.close();
+  }
+}
+
 async function main(argv: string[]): Promise<void> {
   let cmd;
   try {
@@ -113,6 +139,7 @@ async function main(argv: string[]): Promise<void> {
     if (cmd.command === 'solve') await writeOut(jsonPieces(solveGraph(model)));
     else if (cmd.command === 'sweep') await sweep(model, cmd);
     else if (cmd.command === 'tf') await writeOut(jsonPieces(transferFunction(model, cmd.input, cmd.output)));
+    else if (cmd.command === 'transient') await transient(model, cmd);
   } catch (e) {
     if (e instanceof ProbeError || e instanceof TransferUsageError) fail(2, e.message);
     if (e instanceof ModelRefusal) fail(1, e.message);

@@ -7,3 +7,5 @@ export { pairState, connectionOf, mutualOf, type PairState, type Connection } fr
 export { compareDotFlip, diffResults, flipDot, type Change, type DotComparison } from './compare';
 export { powerSummary, efficiency, type PowerRow, type PowerSummary } from './power';
 export { transferFunction, TransferUsageError } from './sdomain/transfer';
+export { transientGraph, transientStream, type TransientResult, type TransientSeries, type TransientLayout } from './transient/result';
+export type { TransientOptions } from './transient/engine';

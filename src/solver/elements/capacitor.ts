@@ -17,9 +17,14 @@ export const capacitor: ElementDef<CapacitorEl> = {
   kind: 'capacitor',
   schema: capacitorSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never' },
+  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never', state: 'voltage' },
   branches: 0,
   stamp: (el, at) => conductance(at, el.farads, 'c'),
   ports: [{ terminals: [0, 1], current: { kind: 'capacitance', farads: (el) => el.farads } }],
   sweepable: { field: 'farads', what: 'capacitance', unit: 'F', span: 10 },
+  initialCharge: (el, node, put) => {
+    const q = el.farads * (el.initialVolts ?? 0);
+    put(node(0), q);
+    put(node(1), -q);
+  },
 };

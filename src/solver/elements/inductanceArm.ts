@@ -15,9 +15,10 @@ export const inductanceArm: ElementDef<InductanceArmEl> = {
   kind: 'inductance-arm',
   schema: inductanceArmSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'dc' },
+  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'dc', state: 'current' },
   branches: 1,
   stamp: stampInductance,
   ports: [{ terminals: [0, 1], current: { kind: 'branch', branch: 0, gain: () => 1 } }],
   dcNote: 'a short at 0 Hz',
+  initialCurrent: () => 0,
 };

@@ -30,12 +30,13 @@ export const inductor: ElementDef<InductorEl> = {
   kind: 'inductor',
   schema: inductorSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'dc', winding: true },
+  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'dc', winding: true, state: 'current' },
   branches: 1,
   stamp: stampInductance,
   ports: [{ terminals: [0, 1], current: { kind: 'branch', branch: 0, gain: () => 1 } }],
   sweepable: { field: 'henries', what: 'inductance', unit: 'H', span: 10 },
   dcNote: 'a short at 0 Hz',
+  initialCurrent: (el) => el.initialAmps ?? 0,
 };
 
 /** d = +1 when the winding's dot is on nodes[0], −1 when on nodes[1]. */

@@ -21,6 +21,8 @@ export interface ElementRoles {
   dissipative?: boolean;
   /** an inductor that couplings may name as a winding */
   winding?: boolean;
+  /** what the element stores (time domain): a capacitor's voltage, an inductance's current */
+  state?: 'voltage' | 'current';
 }
 
 /**
@@ -91,6 +93,13 @@ export interface ElementDef<E extends { id: string; kind: string; nodes: string[
   sweepable?: Sweepable<E>;
   /** a two-sided element's constraint V(side 0) = ratio·V(side 1), for the loop check of the graph */
   ratio?(el: E): number;
+  /**
+   * Time domain, the element's initial state: a capacitance puts its charge C·v(0) into its rows
+   * (`put(row, v)` as its C stamp would for the voltage v(0)); an inductance gives i(0) of its branch,
+   * whose flux linkage the core reads through C with the mutual terms.
+   */
+  initialCharge?(el: E, node: (t: number) => number, put: (row: number, v: number) => void): void;
+  initialCurrent?(el: E): number;
   /** phrases for refusals that name the element's role ("a short at 0 Hz") */
   dcNote?: string;
 }

@@ -1,0 +1,145 @@
+import { describe, expect, it } from 'vitest';
+import { parseGraphModel, solveGraph, transientGraph, type TransientResult } from '../../../src/solver';
+import type { GraphElement, GraphModel, TwoTerminalResult } from '../../../src/model/graph';
+
+/**
+ * The time response against closed forms of circuit theory, at the accuracy
+ * the contract promises (time-and-s-domain.md, "Accuracy": every sample within
+ * 1e-3·P at the default tolerance, 1e-5·P at 1e-7, P the quantity's largest
+ * magnitude over the run).
+ */
+
+const model = (elements: GraphElement[], frequencyHz = 50, amplitudes: 'rms' | 'peak' = 'peak'): GraphModel =>
+  parseGraphModel({ schema: 'coilwright.graph/1', frequencyHz, amplitudes, ground: 'gnd', elements, couplings: [] });
+
+/** Largest |a − b| over the samples, and the largest |b| (P). */
+function worst(r: TransientResult, got: number[], exact: (t: number) => number) {
+  let err = 0;
+  let peak = 0;
+  r.timesS.forEach((t, k) => {
+    const e = exact(t);
+    err = Math.max(err, Math.abs(got[k] - e));
+    peak = Math.max(peak, Math.abs(e));
+  });
+  return { err, peak };
+}
+
+describe('time response, closed forms', () => {
+  const R = 10;
+  const L = 0.1;
+  const tau = L / R;
+  const rl = (extra: Partial<GraphElement> = {}) => model([
+    { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 0, phaseDeg: 0, waveform: { shape: 'step', before: 0, after: 10, atS: tau }, ...extra } as GraphElement,
+    { id: 'R1', kind: 'resistor', nodes: ['a', 'b'], ohms: R },
+    { id: 'L1', kind: 'inductor', nodes: ['b', 'gnd'], henries: L },
+  ]);
+  // RL step: i = (V/R)·(1 − e^(−(t − t0)/τ)), τ = L/R (first-order circuit, from memory)
+  const iRL = (t: number) => (t < tau * (1 - 1e-9) ? 0 : (10 / R) * (1 - Math.exp(-(t - tau) / tau)));
+
+  it('an RL step follows (V/R)(1 − e^(−t/τ)) to 1e-3·P at the default tolerance and 1e-5·P at 1e-7', () => {
+    for (const [tolerance, bound] of [[1e-4, 1e-3], [1e-7, 1e-5]]) {
+      const r = transientGraph(rl(), { stopS: 6 * tau, stepS: (6 * tau) / 600, tolerance, start: 'given' });
+      const { err, peak } = worst(r, r.elements.L1.current!, iRL);
+      expect(err).toBeLessThan(bound * peak);
+      // the resistor's voltage is i·R and the inductor's V − i·R (KVL)
+      const v = worst(r, r.elements.L1.voltage!, (t) => (t < tau * (1 - 1e-9) ? 0 : 10 - R * iRL(t)));
+      expect(v.err).toBeLessThan(bound * v.peak);
+    }
+  });
+
+  it('the sample at the step itself shows the value just after it', () => {
+    const r = transientGraph(rl(), { stopS: 2 * tau, stepS: tau / 10, tolerance: 1e-4, start: 'given' });
+    const k = r.timesS.findIndex((t) => Math.abs(t - tau) < 1e-12);
+    expect(r.nodes.a[k]).toBe(10);
+    expect(r.elements.L1.voltage![k]).toBeCloseTo(10, 6); // no current yet: all of V across L
+  });
+
+  it('a magnetising inductance switched in at the voltage zero draws an offset equal to its steady-state peak; at the peak, none', () => {
+    const f = 50;
+    const w = 2 * Math.PI * f;
+    const A = 325;
+    const Lm = 2;
+    // switched in at the voltage zero: v = A·sin(ωt) from t = 0, i = (A/ωL)(1 − cos ωt): it swings from 0 to twice the
+    // steady-state peak A/(ωL), an offset equal to that peak (standard result, from memory; field notes)
+    const atZero = model([
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 0, phaseDeg: 0, waveform: { shape: 'sine', amplitude: A, frequencyHz: f, phaseDeg: -90 } },
+      { id: 'Lm', kind: 'inductor', nodes: ['a', 'gnd'], henries: Lm },
+    ]);
+    const r = transientGraph(atZero, { stopS: 0.1, stepS: 1e-4, tolerance: 1e-4, start: 'given' });
+    const ipk = A / (w * Lm);
+    const { err, peak } = worst(r, r.elements.Lm.current!, (t) => ipk * (1 - Math.cos(w * t)));
+    expect(err).toBeLessThan(1e-3 * peak);
+    expect(Math.max(...r.elements.Lm.current!)).toBeCloseTo(2 * ipk, 3);
+    // switched in at the peak: v = A·cos(ωt), i = (A/ωL)·sin ωt, no offset
+    const atPeak = model([
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 0, phaseDeg: 0, waveform: { shape: 'sine', amplitude: A, frequencyHz: f } },
+      { id: 'Lm', kind: 'inductor', nodes: ['a', 'gnd'], henries: Lm },
+    ]);
+    const p = transientGraph(atPeak, { stopS: 0.1, stepS: 1e-4, tolerance: 1e-4, start: 'given' });
+    const q = worst(p, p.elements.Lm.current!, (t) => ipk * Math.sin(w * t));
+    expect(q.err).toBeLessThan(1e-3 * q.peak);
+  });
+
+  it('with winding resistance the offset decays with L/R into the phasor steady state', () => {
+    const f = 50;
+    const w = 2 * Math.PI * f;
+    const [A, Lm, Rw] = [325, 2, 40];
+    const tauW = Lm / Rw;
+    const m = model([
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: A, phaseDeg: -90 },
+      { id: 'Rw', kind: 'resistor', nodes: ['a', 'b'], ohms: Rw },
+      { id: 'Lm', kind: 'inductor', nodes: ['b', 'gnd'], henries: Lm },
+    ], f);
+    const r = transientGraph(m, { stopS: 12 * tauW, stepS: 1e-4, tolerance: 1e-4, start: 'given' });
+    // i(t) = |I|·cos(ωt + φ_I) − |I|·cos(φ_I)·e^(−t/τ) (RL switched onto a sine, from memory), |I|∠φ_I the phasor current
+    const ph = solveGraph(m).elements.Lm as TwoTerminalResult;
+    const mag = Math.hypot(ph.current.re, ph.current.im);
+    const phi = Math.atan2(ph.current.im, ph.current.re);
+    const exact = (t: number) => mag * Math.cos(w * t + phi) - mag * Math.cos(phi) * Math.exp(-t / tauW);
+    const { err, peak } = worst(r, r.elements.Lm.current!, exact);
+    expect(err).toBeLessThan(1e-3 * peak);
+    // the last period is the phasor steady state (the graph-model contract's solve)
+    const last = r.timesS.length - 1;
+    const tEnd = r.timesS[last];
+    expect(Math.abs(r.elements.Lm.current![last] - mag * Math.cos(w * tEnd + phi))).toBeLessThan(1e-3 * mag);
+  });
+
+  it('an LC tank from an initial voltage keeps its energy within 1e-6 over 1,000 periods', () => {
+    const [Lc, C] = [1e-3, 1e-6];
+    const w0 = 1 / Math.sqrt(Lc * C);
+    const period = (2 * Math.PI) / w0;
+    const m = model([
+      { id: 'C1', kind: 'capacitor', nodes: ['a', 'gnd'], farads: C, initialVolts: 1 },
+      { id: 'L1', kind: 'inductor', nodes: ['a', 'gnd'], henries: Lc },
+    ]);
+    const r = transientGraph(m, { stopS: 1000 * period, stepS: period / 4, tolerance: 5e-4, start: 'given' });
+    // E = ½Cv² + ½Li² is conserved by a lossless tank (energy argument, standard)
+    const e0 = 0.5 * C;
+    let drift = 0;
+    r.timesS.forEach((_, k) => {
+      const e = 0.5 * C * r.nodes.a[k] ** 2 + 0.5 * Lc * r.elements.L1.current![k] ** 2;
+      drift = Math.max(drift, Math.abs(e - e0) / e0);
+    });
+    expect(drift).toBeLessThan(1e-6);
+    expect(r.warnings).toEqual([]);
+  });
+
+  it('a capacitor straight across a stepped source jumps with it, conserving charge, and says so', () => {
+    // two capacitors in series across a source that steps to 10 V: the charge q = C1C2/(C1+C2)·10 puts
+    // 10·C2/(C1+C2) across C1 at once (charge conservation, from memory)
+    const m = model([
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 0, phaseDeg: 0, waveform: { shape: 'step', before: 0, after: 10, atS: 1e-3 } },
+      { id: 'C1', kind: 'capacitor', nodes: ['a', 'b'], farads: 1e-6 },
+      { id: 'C2', kind: 'capacitor', nodes: ['b', 'gnd'], farads: 3e-6 },
+      { id: 'R2', kind: 'resistor', nodes: ['b', 'gnd'], ohms: 1e3 },
+    ]);
+    const r = transientGraph(m, { stopS: 2e-3, stepS: 1e-4, tolerance: 1e-4, start: 'given' });
+    const k = r.timesS.findIndex((t) => Math.abs(t - 1e-3) < 1e-12);
+    expect(r.elements.C1.voltage![k]).toBeCloseTo(10 * 0.75, 6);
+    expect(r.warnings.join(' ')).toMatch(/state jump at 0\.001 s: "C1".*"C2"/);
+    // afterwards C2 discharges through R2 with τ = R2·(C1 + C2) (the source shorts C1's far end): v_b = 2.5·e^(−t/τ)
+    const tau = 1e3 * 4e-6;
+    const last = r.timesS.length - 1;
+    expect(r.nodes.b[last]).toBeCloseTo(2.5 * Math.exp(-1e-3 / tau), 3);
+  });
+});
