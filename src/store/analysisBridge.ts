@@ -3,7 +3,7 @@
  * promise with progress reports and a cancel. A crashed worker is replaced
  * and every open question is refused with a message.
  */
-import type { AnalysisReply, AnalysisRequest, CompareAnswer, InspectAnswer, PowerAnswer, SweepAnswer, SweepSpec, TAnswer } from '../model/analysisMessages';
+import type { AnalysisReply, AnalysisRequest, CompareAnswer, InspectAnswer, PowerAnswer, SweepAnswer, SweepSpec, TAnswer } from '../worker/protocol';
 import type { GraphModel, SolveResult } from '../model/graph';
 
 export interface AnalysisWorkerLike {

@@ -4,7 +4,7 @@
  * sweep runs in chunks; between chunks it reports progress and yields, so a
  * cancel message can arrive and stop it.
  */
-import type { AnalysisReply, AnalysisRequest } from '../model/analysisMessages';
+import type { AnalysisReply, AnalysisRequest } from './protocol';
 import { chunkRanges, compare, inspect, power, prepareSweep, tCheck } from './analysisTasks';
 
 declare const self: DedicatedWorkerGlobalScope;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_FACTS } from '../../model/elementFacts';
 import { finite, idField, positive, twoNodes } from './schema';
 import { conductance, type ElementDef } from './types';
 
@@ -17,9 +18,9 @@ export const capacitor: ElementDef<CapacitorEl> = {
   kind: 'capacitor',
   schema: capacitorSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never' },
+  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never', ...ELEMENT_FACTS.capacitor.roles },
   branches: 0,
   stamp: (el, at) => conductance(at, el.farads, 'c'),
   ports: [{ terminals: [0, 1], current: { kind: 'capacitance', farads: (el) => el.farads } }],
-  sweepable: { field: 'farads', what: 'capacitance', unit: 'F', span: 10 },
+  sweepable: ELEMENT_FACTS.capacitor.sweepable,
 };

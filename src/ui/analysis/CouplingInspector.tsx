@@ -1,6 +1,6 @@
 /** Coupling inspector: L1, L2, M and k (M from k or k from M), and the pair's state at the solved currents. */
 import { useEffect, useState } from 'react';
-import type { InspectAnswer } from '../../model/analysisMessages';
+import type { InspectAnswer } from '../../worker/protocol';
 import * as E from '../../model/edits';
 import { formatEditable, formatSI } from '../../model/quantity';
 import { commit } from '../../store/actions';
