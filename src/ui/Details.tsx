@@ -9,6 +9,7 @@ import { commit, renamePart } from '../store/actions';
 import { CommandButton } from './CommandButton';
 import { Field, quantity } from './Field';
 import { useEditor, useEditorState } from './editorContext';
+import { SwitchEditor, WaveformEditor } from './TimeEditors';
 
 export function Details() {
   const selection = useEditorState((s) => s.selection);
@@ -151,6 +152,8 @@ function PartDetails({ part }: { part: Part }) {
           }}
         />
       ))}
+      {def.editor === 'waveform' && <WaveformEditor part={part} />}
+      {def.editor === 'switch' && <SwitchEditor part={part} />}
       {def.couplable && (
         <div className="field">
           <span className="label">Polarity dot</span>
