@@ -4,7 +4,7 @@ import type { SweepAnswer, SweepQuantity } from '../worker/protocol';
 import type { SolveResult } from '../model/graph';
 import type { TRecord } from '../model/tEquivalentSheet';
 
-export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power';
+export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain';
 
 export interface SweepTrace { label: string; quantity: SweepQuantity; unit: string }
 

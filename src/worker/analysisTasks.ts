@@ -6,10 +6,10 @@
 import type { ComplexJson, GraphModel, InductorEl, SolveResult, TwoTerminalResult } from '../model/graph';
 import { withNameTables } from '../model/names';
 import { portAgreement } from '../model/resultCompare';
-import type { CompareAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer } from './protocol';
+import type { CompareAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer, TransferAnswer } from './protocol';
 import {
   compareDotFlip, connectionOf, createSession, frequencyGrid, pairState, parseGraphModel, powerSummary,
-  reflectedImpedances, solveGraph, sourceImpedance, substituteTEquivalent, tEquivalent, type SolverSession,
+  reflectedImpedances, solveGraph, sourceImpedance, substituteTEquivalent, tEquivalent, transferFunction, type SolverSession,
 } from '../solver';
 import { sourceRole } from '../solver/elements/registry';
 
@@ -238,4 +238,27 @@ export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
     }
   };
   return { frequencies, traces, run };
+}
+
+/**
+ * The transfer function from a source to an output (the solver's
+ * transferFunction), and which of the circuit's natural frequencies are poles
+ * of it: each pole is matched to the nearest unmatched natural frequency
+ * within a millionth of the larger magnitude.
+ */
+export function transfer(raw: GraphModel, input: string, output: string): TransferAnswer {
+  const model = parseGraphModel(raw);
+  const tf = transferFunction(model, input, output);
+  const used = new Set<number>();
+  for (const p of tf.poles) {
+    let best = -1;
+    let bestD = Infinity;
+    tf.naturalFrequencies.forEach((n, i) => {
+      if (used.has(i)) return;
+      const d = abs(sub(n, p));
+      if (d <= 1e-6 * Math.max(abs(n), abs(p), 1e-300) && d < bestD) { best = i; bestD = d; }
+    });
+    if (best >= 0) used.add(best);
+  }
+  return { ...tf, seen: tf.naturalFrequencies.map((_, i) => used.has(i)) };
 }

@@ -5,7 +5,7 @@
  * chunks that report progress and can be cancelled. The answers are built
  * from the solver's own types; the editor imports these types only.
  */
-import type { ComplexJson, GraphModel, SolveResult } from '../model/graph';
+import type { ComplexJson, GraphModel, SolveResult, TransferResult } from '../model/graph';
 import type { Change, PairState, PowerSummary, TEquivalent } from '../solver';
 
 /** What a sweep trace plots. */
@@ -68,6 +68,12 @@ export type PowerAnswer = Pick<PowerSummary, 'rows' | 'delivered' | 'dissipated'
   amplitudes: 'rms' | 'peak';
 };
 
+/** The solver's transfer function, with the natural frequencies this input and output do not see marked. */
+export type TransferAnswer = TransferResult & {
+  /** for each entry of naturalFrequencies: whether it is a pole of this (minimal) H */
+  seen: boolean[];
+};
+
 export interface SweepAnswer {
   frequenciesHz: number[];
   /** one complex series per requested quantity (re and im interleaved: re0, im0, re1, im1 …) */
@@ -81,6 +87,7 @@ export type AnalysisRequest =
   | { id: number; kind: 'tcheck'; model: GraphModel; coupling: string }
   | { id: number; kind: 'power'; model: GraphModel; result: SolveResult }
   | { id: number; kind: 'sweep'; model: GraphModel; spec: SweepSpec }
+  | { id: number; kind: 'transfer'; model: GraphModel; input: string; output: string }
   | { id: number; kind: 'cancel'; target: number };
 
 export type AnalysisReply =
