@@ -1,4 +1,4 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test, type Locator, type Page } from '@playwright/test';
 import { abs, add, clickSheet, cx, div, mul, shot, type C } from './helpers';
 
 // The wireless-charging example (src/model/examples/wireless.ts): Vinv 50 V RMS at 85 kHz, Cp – Rcp (0.05 Ω) – Lpad (60 µH),
@@ -6,6 +6,16 @@ import { abs, add, clickSheet, cx, div, mul, shot, type C } from './helpers';
 const f0 = 85e3, k = 0.2, L = 60e-6, R1 = 0.05, R2 = 0.05 + 8;
 const Cap = 1 / ((2 * Math.PI * f0) ** 2 * L);
 const M = k * L;
+
+/** Type a bad entry and see it refused with the reason, then a good one and see it taken. */
+async function refusedThenTaken(field: Locator, panel: Locator, bad: string, reason: RegExp, good: string) {
+  await field.fill(bad);
+  await field.press('Enter');
+  await expect(panel.getByRole('alert')).toContainText(reason);
+  await field.fill(good);
+  await field.press('Enter');
+  await expect(panel.getByRole('alert')).toHaveCount(0);
+}
 
 async function openWireless(page: Page) {
   await page.goto('/');
@@ -20,24 +30,12 @@ test('initial values and a waveform in the details panel, the pair in three doma
 
   // a winding's initial current: a bad entry is refused naming the field, a good one is kept with its unit read
   await clickSheet(page, 400, 200);
-  const i0 = details.getByTestId('field-initialAmps');
-  await i0.fill('lots');
-  await i0.press('Enter');
-  await expect(details.getByRole('alert')).toBeVisible();
-  await i0.fill('500 mA');
-  await i0.press('Enter');
-  await expect(details.getByRole('alert')).toHaveCount(0);
+  await refusedThenTaken(details.getByTestId('field-initialAmps'), details, 'lots', /^Initial current i\(0\): "lots"/, '500 mA');
 
   // a source's waveform: a step, whose time may not be negative (contract: step atS >= 0)
   await clickSheet(page, 100, 200);
   await details.getByTestId('waveform-shape').selectOption('step');
-  const at = details.getByTestId('wave-atS');
-  await at.fill('-1m');
-  await at.press('Enter');
-  await expect(details.getByRole('alert')).toContainText('At');
-  await at.fill('1 ms');
-  await at.press('Enter');
-  await expect(details.getByRole('alert')).toHaveCount(0);
+  await refusedThenTaken(details.getByTestId('wave-atS'), details, '-1m', /^At /, '1 ms');
   // the sheet keeps it: selected again, the field shows the stored value
   await clickSheet(page, 400, 200);
   await expect(details.getByTestId('field-initialAmps')).toHaveValue('500m');
@@ -99,11 +97,6 @@ test('initial values and a waveform in the details panel, the pair in three doma
   await details.getByTestId('switch-open').check();
   await expect(details.getByTestId('switch-open')).toBeChecked();
   const toggles = details.getByTestId('field-togglesS');
-  await toggles.fill('2m, 1m');
-  await toggles.press('Enter');
-  await expect(details.getByRole('alert')).toContainText('Toggles at (entry 2) must be later than the time before it');
-  await toggles.fill('1m, 2m');
-  await toggles.press('Enter');
-  await expect(details.getByRole('alert')).toHaveCount(0);
+  await refusedThenTaken(toggles, details, '2m, 1m', /Toggles at \(entry 2\) must be later than the time before it/, '1m, 2m');
   await expect(toggles).toHaveValue('1m, 2m');
 });
