@@ -41,6 +41,8 @@ test('initial values and a waveform in the details panel, the pair in three doma
   await expect(details.getByTestId('field-initialAmps')).toHaveValue('500m');
   await clickSheet(page, 100, 200);
   await expect(details.getByTestId('wave-atS')).toHaveValue('1m');
+  // its drawing spans the step and as long again, from 0 V to the phasor's peak √2·50 V = 70.7 V to 3 figures (rms to peak, common practice)
+  await expect(details.getByTestId('waveform-preview')).toContainText('0 V to 70.7 V, 0 s to 2 ms');
 
   // the pair's law in three domains with the present values: both dots first, so +M (contract: d1·d2 = +1)
   await clickSheet(page, 400, 200);

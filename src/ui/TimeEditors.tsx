@@ -8,7 +8,8 @@ import { formatEditable } from '../model/quantity';
 import * as E from '../model/edits';
 import type { Part } from '../model/sheet';
 import type { Waveform, WaveformShape } from '../model/waveform';
-import { SHAPE_LABELS, WAVEFORM_FIELDS, WAVEFORM_SHAPES, startingWaveform, waveformProblem, type WaveUnit } from '../model/waveformFields';
+import { SHAPE_LABELS, WAVEFORM_FIELDS, WAVEFORM_SHAPES, previewWindow, startingWaveform, waveformProblem, waveformSamples, type WaveUnit } from '../model/waveformFields';
+import { formatSI } from '../model/quantity';
 import { commit } from '../store/actions';
 import { Field, quantity } from './Field';
 import { parseEntry } from './valueEntry';
@@ -87,7 +88,29 @@ export function WaveformEditor({ part }: { part: Part }) {
             }} />
         );
       })}
+      {w && <WaveformPreview w={w} unit={unit} fallbackHz={sheet.frequencyHz} />}
     </fieldset>
+  );
+}
+
+/** A small drawing of the waveform over the window previewWindow picks, its value range and time span written beside it. */
+function WaveformPreview({ w, unit, fallbackHz }: { w: Waveform; unit: string; fallbackHz: number }) {
+  const [t0, t1] = previewWindow(w, fallbackHz);
+  const { t, y } = waveformSamples(w, t0, t1);
+  const lo = Math.min(...y);
+  const hi = Math.max(...y);
+  const pad = hi > lo ? (hi - lo) * 0.1 : Math.max(Math.abs(hi), 1) * 0.1;
+  const [W, H] = [220, 60];
+  const px = (x: number) => ((x - t0) / (t1 - t0)) * W;
+  const py = (v: number) => H - ((v - (lo - pad)) / (hi - lo + 2 * pad)) * H;
+  const pts = t.map((x, i) => `${px(x).toFixed(1)},${py(y[i]).toFixed(1)}`).join(' ');
+  return (
+    <figure className="wave-preview" data-testid="waveform-preview">
+      <svg width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" aria-label="The source's waveform over time">
+        <polyline points={pts} fill="none" stroke="currentColor" strokeWidth={1.5} />
+      </svg>
+      <figcaption className="field-hint">{formatSI(lo, unit, 3)} to {formatSI(hi, unit, 3)}, {formatSI(t0, 's', 3)} to {formatSI(t1, 's', 3)}</figcaption>
+    </figure>
   );
 }
 
