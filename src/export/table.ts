@@ -1,5 +1,6 @@
 /** The results table of the exported sheet: text cells (node voltages, part voltages and currents, P and Q) and their layout. */
 import type { ComplexJson, GraphModel, SolveResult } from '../model/graph';
+import { isDissipative, sourceKindOf } from '../model/elementFacts';
 import { angleDeg, mag } from '../model/phasor';
 import { formatAngle, formatSI } from '../model/quantity';
 import { couplingName, couplingTitle } from '../model/couplingName';
@@ -74,10 +75,10 @@ export function powerTotals(model: GraphModel, result: SolveResult): { watts: nu
     const r = result.elements[el.id];
     if (!r) continue;
     top = Math.max(top, Math.abs(r.power.watts), Math.abs(r.power.vars));
-    if (el.kind === 'voltage-source' || el.kind === 'current-source') {
+    if (sourceKindOf(el)) {
       watts -= r.power.watts;
       vars -= r.power.vars;
-    } else if (el.kind === 'resistor') dissipated += r.power.watts;
+    } else if (isDissipative(el)) dissipated += r.power.watts;
   }
   const quiet = (x: number) => (Math.abs(x) < top * NOISE ? 0 : x);
   return { watts: quiet(watts), vars: quiet(vars), dissipated: quiet(dissipated) };

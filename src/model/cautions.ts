@@ -90,6 +90,7 @@ export function openSecondaries(model: GraphModel): Caution[] {
       if (e === t) continue;
       if (e.kind === 'ideal-transformer') { join(e.nodes[0], e.nodes[1]); join(e.nodes[2], e.nodes[3]); continue; }
       if (e.kind === 'current-source') continue; // a current source closes no path for the secondary current
+      if (e.kind === 'switch' && !e.closed) continue; // nor does an open switch (its leakage resistance is no burden)
       join(e.nodes[0], e.nodes[1]);
     }
     const [p1, p2, s1, s2] = t.nodes;

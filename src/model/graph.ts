@@ -21,7 +21,7 @@ export type {
   GraphElement, ElementKind, ResistorEl, InductorEl, CapacitorEl, VoltageSourceEl, CurrentSourceEl,
   IdealTransformerEl, InductanceArmEl, SwitchEl,
 } from '../solver/elements/registry';
-export type { Waveform } from '../solver/elements/waveform';
+export type { Waveform, WaveformShape } from './waveform';
 import type { GraphElement } from '../solver/elements/registry';
 
 export interface Coupling {

@@ -9,6 +9,10 @@
  * v5: couplings lose their own designator (`ref`; they are named by their
  *     windings); the sheet gains `titleBlock` (ISO 7200 data fields) and
  *     `display` (which readings the drawing shows), filled with defaults.
+ * v6: windings carry `initialAmps` and capacitors `initialVolts` (filled with
+ *     0, the value at t = 0 they always had); sources may carry a `waveform`
+ *     (without one they follow their phasor, as before); the `switch` part
+ *     kind (`closed`, `onOhms`, `offOhms`, `togglesS`).
  */
 import { SHEET_SCHEMA_PREFIX, SHEET_VERSION } from './sheet';
 
@@ -43,6 +47,17 @@ export const migrations: Record<number, (s: Json) => Json> = {
     couplings: asArray(s.couplings).map((c) => {
       const { ref: _ref, ...rest } = c as Json;
       return rest;
+    }),
+  }),
+  5: (s) => ({
+    ...s,
+    schema: `${SHEET_SCHEMA_PREFIX}6`,
+    parts: asArray(s.parts).map((p) => {
+      if (!p || typeof p !== 'object') return p; // the schema says what is wrong with it
+      const part = p as Json;
+      if (part.kind === 'winding' && part.initialAmps === undefined) return { ...part, initialAmps: 0 };
+      if (part.kind === 'capacitor' && part.initialVolts === undefined) return { ...part, initialVolts: 0 };
+      return part;
     }),
   }),
 };

@@ -1,9 +1,9 @@
 /** The sheet: what the editor draws and saves (current schema version). */
-import type { Amplitudes, DotEnd } from './graph';
+import type { Amplitudes, DotEnd, Waveform } from './graph';
 import type { QuarterTurns } from './geometry';
 
 export const SHEET_SCHEMA_PREFIX = 'coilwright.sheet/';
-export const SHEET_VERSION = 5;
+export const SHEET_VERSION = 6;
 export const SHEET_SCHEMA = `${SHEET_SCHEMA_PREFIX}${SHEET_VERSION}` as const;
 
 export type PartKind =
@@ -16,10 +16,12 @@ export type PartKind =
   | 'ground'
   | 'label'
   /** an arm of an equivalent circuit (T-equivalent): an inductance that may be zero or negative */
-  | 'arm';
+  | 'arm'
+  /** a switch: a resistance of onOhms when closed, offOhms when open, flipping at its toggle times */
+  | 'switch';
 
 export const PART_KINDS: readonly PartKind[] = [
-  'resistor', 'winding', 'capacitor', 'vsource', 'isource', 'transformer', 'ground', 'label', 'arm',
+  'resistor', 'winding', 'capacitor', 'vsource', 'isource', 'transformer', 'ground', 'label', 'arm', 'switch',
 ];
 
 export interface Part {
@@ -37,7 +39,23 @@ export interface Part {
   dot?: DotEnd;
   /** node name of a node label */
   name?: string;
+  /** a winding's current at t = 0, amperes, in its reference direction (pin 0 to pin 1 through it) */
+  initialAmps?: number;
+  /** a capacitor's voltage at t = 0, volts, V(pin 0) − V(pin 1) */
+  initialVolts?: number;
+  /** a source's value over time (the graph model's waveform shapes); without it the source follows its phasor */
+  waveform?: Waveform;
+  /** a switch: closed at t = 0 (and in the phasor, sweep and s-domain analyses) */
+  closed?: boolean;
+  /** a switch's resistance when closed and when open, ohms */
+  onOhms?: number;
+  offOhms?: number;
+  /** a switch's toggle times, seconds, strictly increasing and above 0 */
+  togglesS?: number[];
 }
+
+/** The numeric fields of a part that the details panel edits. */
+export type NumericField = 'value' | 'phaseDeg' | 'initialAmps' | 'initialVolts' | 'onOhms' | 'offOhms';
 
 export interface Wire {
   id: string;

@@ -2,6 +2,8 @@
 import { z } from 'zod';
 import { nameProblem, titleProblem } from './names';
 import { PART_KINDS, SHEET_SCHEMA, type Sheet } from './sheet';
+import { increasingTimes, positive } from './values';
+import { waveformSchema } from './waveform';
 
 /**
  * Bounds on what a sheet may hold. They refuse only what the editor never
@@ -19,6 +21,9 @@ export const SHEET_LIMITS = {
   /** corners of one wire, its two ends included */
   wirePoints: 1_000,
   windingsPerCoupling: 64,
+  /** points of one source waveform, toggle times of one switch */
+  waveformPoints: 10_000,
+  toggles: 10_000,
 } as const;
 
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
@@ -47,6 +52,17 @@ export const partSchema = z.object({
   phaseDeg: finite.optional(),
   dot: z.enum(['first', 'second']).optional(),
   name: name.optional(),
+  initialAmps: finite.optional(),
+  initialVolts: finite.optional(),
+  // the graph model's own waveform rules (src/model/waveform.ts), bounded in size like the rest of a sheet
+  waveform: z.unknown().superRefine((w, ctx) => {
+    const pts = (w as { timesS?: unknown } | null)?.timesS;
+    if (Array.isArray(pts) && pts.length > L.waveformPoints) ctx.addIssue({ code: 'custom', path: ['timesS'], message: `has more than ${L.waveformPoints} points; a waveform has at most ${L.waveformPoints}` });
+  }).pipe(waveformSchema).optional(),
+  closed: z.boolean().optional(),
+  onOhms: positive.optional(),
+  offOhms: positive.optional(),
+  togglesS: increasingTimes(0, true).refine((t) => t.length <= L.toggles, `has more than ${L.toggles} times; a switch toggles at most ${L.toggles} times`).optional(),
 });
 
 export const wireSchema = z.object({

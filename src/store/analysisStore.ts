@@ -1,10 +1,10 @@
 /** State of the analysis views (outside the undoable sheet): which view is open, T-equivalents drawn, the last sweep. */
 import { createStore } from 'zustand/vanilla';
-import type { SweepAnswer, SweepQuantity } from '../model/analysisMessages';
+import type { SweepAnswer, SweepQuantity } from '../worker/protocol';
 import type { SolveResult } from '../model/graph';
 import type { TRecord } from '../model/tEquivalentSheet';
 
-export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power';
+export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain';
 
 export interface SweepTrace { label: string; quantity: SweepQuantity; unit: string }
 

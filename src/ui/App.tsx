@@ -205,7 +205,7 @@ function FirstSteps() {
     <div className="first-steps" role="note" aria-label="How to start">
       <strong>An empty sheet.</strong>
       <ol>
-        <li>Pick a part on the left (or press <kbd>1</kbd>–<kbd>8</kbd>) and click on the sheet to drop it (<kbd>Enter</kbd> drops it at a free spot); <kbd>.</kbd> turns it.</li>
+        <li>Pick a part on the left (or press <kbd>1</kbd>–<kbd>9</kbd>) and click on the sheet to drop it (<kbd>Enter</kbd> drops it at a free spot); <kbd>.</kbd> turns it.</li>
         <li>Press <kbd>J</kbd> and click from pin to pin to join them with a wire (or pick pins with the arrow keys and <kbd>Enter</kbd>); add a ground (<kbd>7</kbd>).</li>
         <li>Select a part and press <kbd>V</kbd> to type its value: <code>4.7m</code>, <code>4.7 mH</code>, <code>1/(2*pi*50)</code>, a ratio <code>1:200</code>.</li>
         <li>Shift-click two windings and press <kbd>C</kbd> to couple them. Currents and voltages appear on the drawing as you go; <kbd>/</kbd> finds any command.</li>

@@ -9,6 +9,8 @@ import { commit, renamePart } from '../store/actions';
 import { CommandButton } from './CommandButton';
 import { Field, quantity } from './Field';
 import { useEditor, useEditorState } from './editorContext';
+import { SwitchEditor, WaveformEditor } from './TimeEditors';
+import { parseEntry } from './valueEntry';
 
 export function Details() {
   const selection = useEditorState((s) => s.selection);
@@ -144,13 +146,18 @@ function PartDetails({ part }: { part: Part }) {
           value={f.editText ? f.editText(part[f.key] ?? 0) : formatEditable(part[f.key] ?? 0, f.unit)}
           hint={f.hint ?? (f.key === 'value' ? 'e.g. 4.7m, 4.7 mH, 1/(2*pi*50)' : undefined)}
           apply={async (t) => {
-            const r = await quantity(t, f.unit, f.check);
-            if ('reason' in r) return r.reason;
+            // an entry that cannot be read is refused naming the field; the field's own check names it already
+            const r = await parseEntry(t, f.unit);
+            if (!r.ok) return `${f.label}: ${r.reason}`;
+            const bad = f.check(r.value);
+            if (bad) return bad;
             patch({ [f.key]: r.value });
             return null;
           }}
         />
       ))}
+      {def.editor === 'waveform' && <WaveformEditor part={part} />}
+      {def.editor === 'switch' && <SwitchEditor part={part} />}
       {def.couplable && (
         <div className="field">
           <span className="label">Polarity dot</span>

@@ -4,8 +4,8 @@
  * sweep runs in chunks; between chunks it reports progress and yields, so a
  * cancel message can arrive and stop it.
  */
-import type { AnalysisReply, AnalysisRequest } from '../model/analysisMessages';
-import { chunkRanges, compare, inspect, power, prepareSweep, tCheck } from './analysisTasks';
+import type { AnalysisReply, AnalysisRequest } from './protocol';
+import { chunkRanges, compare, inspect, power, prepareSweep, tCheck, transfer } from './analysisTasks';
 
 declare const self: DedicatedWorkerGlobalScope;
 
@@ -52,6 +52,7 @@ self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {
       case 'tcheck': return post({ id: req.id, type: 'done', value: tCheck(req.model, req.coupling) });
       case 'power': return post({ id: req.id, type: 'done', value: power(req.model, req.result) });
       case 'sweep': return await sweep(req);
+      case 'transfer': return post({ id: req.id, type: 'done', value: transfer(req.model, req.input, req.output) });
     }
   } catch (e) {
     post({ id: req.id, type: 'failed', message: (e instanceof Error ? e.message : String(e)).split('\n')[0] });

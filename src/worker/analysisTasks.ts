@@ -6,11 +6,12 @@
 import type { ComplexJson, GraphModel, InductorEl, SolveResult, TwoTerminalResult } from '../model/graph';
 import { withNameTables } from '../model/names';
 import { portAgreement } from '../model/resultCompare';
-import type { CompareAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer } from '../model/analysisMessages';
+import type { CompareAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer, TransferAnswer } from './protocol';
 import {
   compareDotFlip, connectionOf, createSession, frequencyGrid, pairState, parseGraphModel, powerSummary,
-  reflectedImpedances, solveGraph, sourceImpedance, substituteTEquivalent, tEquivalent, type SolverSession,
+  reflectedImpedances, solveGraph, sourceImpedance, substituteTEquivalent, tEquivalent, transferFunction, type SolverSession,
 } from '../solver';
+import { sourceRole } from '../solver/elements/registry';
 
 type C = ComplexJson;
 const ZERO: C = { re: 0, im: 0 };
@@ -37,7 +38,7 @@ export function inspect(raw: GraphModel, received: SolveResult, coupling: string
   const refl = (w: string, partner: string): C => reflectedImpedances(model, w).find((r) => r.partner === partner)?.reflected ?? ZERO;
   const conn = connectionOf(model, coupling, [a, b]);
   const sources = model.elements
-    .filter((e) => e.kind === 'voltage-source' || e.kind === 'current-source')
+    .filter((e) => sourceRole(e) !== undefined)
     .map((e) => {
       try {
         return { id: e.id, z: sourceImpedance(model, e.id).z };
@@ -170,7 +171,7 @@ export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
   const session = createSession(model);
   const nodes = new Set<string>();
   const elements = new Set<string>();
-  const zin = new Map<string, { session: SolverSession; kind: string }>();
+  const zin = new Map<string, { session: SolverSession; drives: 'voltage' | 'current' }>();
   const ids = new Set(model.elements.map((e) => e.id));
   const nodeNames = new Set(session.topo.nodeNames);
   const need = (q: SweepQuantity): void => {
@@ -185,15 +186,16 @@ export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
         return;
       case 'zin': {
         const src = model.elements.find((e) => e.id === q.source);
-        if (!src || (src.kind !== 'voltage-source' && src.kind !== 'current-source')) throw new Error(`"${q.source}" is not a source on this sheet`);
+        const drives = src && sourceRole(src);
+        if (!drives) throw new Error(`"${q.source}" is not a source on this sheet`);
         if (!zin.has(q.source)) {
           // the rest of the circuit with every other source zeroed, driven by this one at 1∠0°
           const test: GraphModel = {
             ...model,
             elements: model.elements.map((e) =>
-              e.kind === 'voltage-source' || e.kind === 'current-source' ? { ...e, magnitude: e.id === q.source ? 1 : 0, phaseDeg: 0 } : e),
+              sourceRole(e) ? { ...e, magnitude: e.id === q.source ? 1 : 0, phaseDeg: 0 } : e),
           };
-          zin.set(q.source, { session: createSession(test), kind: src.kind });
+          zin.set(q.source, { session: createSession(test), drives });
         }
         return;
       }
@@ -213,7 +215,7 @@ export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
       const zs = new Map<string, C>();
       for (const [id, z] of zin) {
         const r = z.session.toResult(z.session.solveRaw(f), { nodes: new Set(), elements: new Set([id]) }).elements[id] as TwoTerminalResult;
-        zs.set(id, z.kind === 'voltage-source' ? div({ re: 1, im: 0 }, { re: -r.current.re, im: -r.current.im }) : { re: -r.voltage.re, im: -r.voltage.im });
+        zs.set(id, z.drives === 'voltage' ? div({ re: 1, im: 0 }, { re: -r.current.re, im: -r.current.im }) : { re: -r.voltage.re, im: -r.voltage.im });
       }
       const value = (q: SweepQuantity): C => {
         switch (q.kind) {
@@ -236,4 +238,27 @@ export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
     }
   };
   return { frequencies, traces, run };
+}
+
+/**
+ * The transfer function from a source to an output (the solver's
+ * transferFunction), and which of the circuit's natural frequencies are poles
+ * of it: each pole is matched to the nearest unmatched natural frequency
+ * within a millionth of the larger magnitude.
+ */
+export function transfer(raw: GraphModel, input: string, output: string): TransferAnswer {
+  const model = parseGraphModel(raw);
+  const tf = transferFunction(model, input, output);
+  const used = new Set<number>();
+  for (const p of tf.poles) {
+    let best = -1;
+    let bestD = Infinity;
+    tf.naturalFrequencies.forEach((n, i) => {
+      if (used.has(i)) return;
+      const d = abs(sub(n, p));
+      if (d <= 1e-6 * Math.max(abs(n), abs(p), 1e-300) && d < bestD) { best = i; bestD = d; }
+    });
+    if (best >= 0) used.add(best);
+  }
+  return { ...tf, seen: tf.naturalFrequencies.map((_, i) => used.has(i)) };
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { AnalysisReply, AnalysisRequest } from '../../src/model/analysisMessages';
+import type { AnalysisReply, AnalysisRequest } from '../../src/worker/protocol';
 import { AnalysisClient, CancelledError, type AnalysisWorkerLike } from '../../src/store/analysisBridge';
 import { chunkRanges, prepareSweep } from '../../src/worker/analysisTasks';
 import { model } from '../helpers';

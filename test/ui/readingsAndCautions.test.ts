@@ -75,6 +75,15 @@ describe('hazards and notices said of the sheet', () => {
     expect(c.map((x) => [x.kind, x.target])).toEqual([['open-secondary', { kind: 'element', id: 'T1' }]]);
     expect(c[0].text).toMatch(/open current-transformer secondary.*dangerous voltage/);
     expect(c[0].text).toMatch(/local codes and licensed practice/);
+    // a burden behind an open switch is no burden; behind a closed one it is
+    const switched = (closed: boolean): GraphModel => {
+      const m = ct(true);
+      m.elements[2] = { ...m.elements[2], nodes: ['b', 'gnd'] } as GraphModel['elements'][number];
+      m.elements.push({ id: 'S1', kind: 'switch', nodes: ['s', 'b'], closed });
+      return m;
+    };
+    expect(openSecondaries(switched(false)).map((x) => x.kind)).toEqual(['open-secondary']);
+    expect(openSecondaries(switched(true))).toEqual([]);
   });
 
   it('give voltages in the number format of everything else, and say what they are about', () => {

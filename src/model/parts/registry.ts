@@ -4,11 +4,12 @@ import { rectOfLocal, toSheet, type Point, type Rect } from '../geometry';
 import { PART_KINDS, type Part, type PartKind } from '../sheet';
 import { ground, label, transformer } from './others';
 import { isource, vsource } from './sources';
+import { switchPart } from './switch';
 import { arm, capacitor, resistor, winding } from './twoTerminal';
 import type { Mark, PartDef } from './types';
 
 export const PART_DEFS: Record<PartKind, PartDef> = {
-  resistor, winding, capacitor, vsource, isource, transformer, ground, label, arm,
+  resistor, winding, capacitor, vsource, isource, transformer, ground, label, arm, switch: switchPart,
 };
 
 export function partDef(kind: PartKind): PartDef {

@@ -28,21 +28,24 @@ export const resistor: PartDef = {
 export const winding: PartDef = {
   kind: 'winding', label: 'Winding', shelfKey: '2', icon: ICON, prefix: 'L', pins: PINS,
   box: { x0: -30, y0: -12, x1: 30, y1: 4 }, defaultRot: 1,
-  defaults: { value: 0.01, dot: 'first' },
-  fields: [{ key: 'value', label: 'Inductance', unit: 'H', check: positive('Inductance') }],
+  defaults: { value: 0.01, dot: 'first', initialAmps: 0 },
+  fields: [
+    { key: 'value', label: 'Inductance', unit: 'H', check: positive('Inductance') },
+    { key: 'initialAmps', label: 'Initial current i(0)', unit: 'A', check: anyFinite('Initial current'), hint: 'at t = 0, from the first terminal to the second through it (the time response starts from it)' },
+  ],
   draw: () => [
     { t: 'line', p: [-30, 0, -20, 0] },
     ...turns(-20, 0),
     { t: 'line', p: [20, 0, 30, 0] },
   ],
   valueText: (p) => formatSI(p.value ?? 0, 'H', 3),
-  toElement: (p, n) => ({ id: p.ref, kind: 'inductor', nodes: [n[0], n[1]], henries: p.value ?? 0, dot: p.dot ?? 'first' }),
+  toElement: (p, n) => ({ id: p.ref, kind: 'inductor', nodes: [n[0], n[1]], henries: p.value ?? 0, dot: p.dot ?? 'first', ...(p.initialAmps ? { initialAmps: p.initialAmps } : {}) }),
   dotAt: (p) => ({ x: p.dot === 'second' ? 24 : -24, y: -9 }),
   marks: (p) => {
     const d = toSheet(p, p.dot === 'second' ? 24 : -24, -9);
     return [{ t: 'dot', x: d.x, y: d.y, r: 2.8, role: 'polarity-dot' }];
   },
-  fromElement: { kind: 'inductor', values: (el) => ({ value: (el as InductorEl).henries, dot: (el as InductorEl).dot ?? 'first' }) },
+  fromElement: { kind: 'inductor', values: (el) => ({ value: (el as InductorEl).henries, dot: (el as InductorEl).dot ?? 'first', initialAmps: (el as InductorEl).initialAmps ?? 0 }) },
   couplable: true,
 };
 
@@ -51,7 +54,7 @@ export const arm: PartDef = {
   kind: 'arm', label: 'Equivalent arm', shelfKey: '', icon: ICON, prefix: 'Leq', pins: PINS,
   box: { x0: -30, y0: -12, x1: 30, y1: 6 }, defaultRot: 1,
   defaults: { value: 0.001 },
-  fields: [{ key: 'value', label: 'Inductance (may be negative)', unit: 'H', check: anyFinite() }],
+  fields: [{ key: 'value', label: 'Inductance (may be negative)', unit: 'H', check: anyFinite('The inductance') }],
   draw: () => [
     { t: 'line', p: [-30, 0, -20, 0] },
     ...turns(-20, 0),
@@ -67,8 +70,11 @@ export const arm: PartDef = {
 export const capacitor: PartDef = {
   kind: 'capacitor', label: 'Capacitor', shelfKey: '3', icon: ICON, prefix: 'C', pins: PINS,
   box: { x0: -30, y0: -13, x1: 30, y1: 13 }, defaultRot: 0,
-  defaults: { value: 1e-6 },
-  fields: [{ key: 'value', label: 'Capacitance', unit: 'F', check: positive('Capacitance') }],
+  defaults: { value: 1e-6, initialVolts: 0 },
+  fields: [
+    { key: 'value', label: 'Capacitance', unit: 'F', check: positive('Capacitance') },
+    { key: 'initialVolts', label: 'Initial voltage v(0)', unit: 'V', check: anyFinite('Initial voltage'), hint: 'at t = 0, the first terminal against the second (the time response starts from it)' },
+  ],
   draw: () => [
     { t: 'line', p: [-30, 0, -4, 0] },
     { t: 'line', p: [-4, -12, -4, 12] },
@@ -76,6 +82,6 @@ export const capacitor: PartDef = {
     { t: 'line', p: [4, 0, 30, 0] },
   ],
   valueText: (p) => formatSI(p.value ?? 0, 'F', 3),
-  toElement: (p, n) => ({ id: p.ref, kind: 'capacitor', nodes: [n[0], n[1]], farads: p.value ?? 0 }),
-  fromElement: { kind: 'capacitor', values: (el) => ({ value: (el as CapacitorEl).farads }) },
+  toElement: (p, n) => ({ id: p.ref, kind: 'capacitor', nodes: [n[0], n[1]], farads: p.value ?? 0, ...(p.initialVolts ? { initialVolts: p.initialVolts } : {}) }),
+  fromElement: { kind: 'capacitor', values: (el) => ({ value: (el as CapacitorEl).farads, initialVolts: (el as CapacitorEl).initialVolts ?? 0 }) },
 };

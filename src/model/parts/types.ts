@@ -1,7 +1,7 @@
 /** One definition per part kind: pins, geometry, drawing, fields and graph contribution. */
 import type { ElementKind, GraphElement } from '../graph';
 import type { Point, QuarterTurns, Rect } from '../geometry';
-import type { Part, PartKind } from '../sheet';
+import type { NumericField, Part, PartKind } from '../sheet';
 
 /** The symbol standard drawn: IEC 60617 (the default) or IEEE 315. */
 export type SymbolStyle = 'iec' | 'ieee';
@@ -25,7 +25,7 @@ export type Mark =
   | { t: 'text'; x: number; y: number; s: string; size: number; mono: boolean; bold: boolean; role: 'node-label' };
 
 export interface FieldDef {
-  key: 'value' | 'phaseDeg';
+  key: NumericField;
   label: string;
   unit: string;
   /** reason the value is not allowed, or null */
@@ -49,7 +49,7 @@ export interface PartDef {
   pins: Point[];
   box: Rect;
   defaultRot: QuarterTurns;
-  defaults: Pick<Part, 'value' | 'phaseDeg' | 'dot' | 'name'>;
+  defaults: Pick<Part, NumericField | 'dot' | 'name' | 'closed' | 'togglesS'>;
   fields: FieldDef[];
   draw: (part: Part, style?: SymbolStyle) => Prim[];
   /** short value text shown beside the part */
@@ -74,11 +74,13 @@ export interface PartDef {
   labelBelow?: boolean;
   /** a node name this part carries, edited in the details panel */
   nameField?: { label: string; hint: string };
+  /** an editor the details panel adds below the fields: a source's waveform, a switch's state and toggle times */
+  editor?: 'waveform' | 'switch';
 }
 
 export const positive = (what: string) => (v: number) => (v > 0 ? null : `${what} must be more than zero`);
 export const nonNegative = (what: string) => (v: number) => (v >= 0 ? null : `${what} must be zero or more`);
-export const anyFinite = () => (v: number) => (Number.isFinite(v) ? null : 'must be a finite number');
+export const anyFinite = (what?: string) => (v: number) => (Number.isFinite(v) ? null : `${what ?? 'It'} must be a finite number`);
 
 /** Four semicircular turns (IEC 60617 inductor) between (x0,y) and (x0+40,y), bulging towards -y. */
 export function turns(x0: number, y: number, dir: 1 | -1 = 1, vertical = false): Prim[] {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_FACTS } from '../../model/elementFacts';
 import { finite, idField, positive, twoNodes } from './schema';
 import { conductance, type ElementDef } from './types';
 
@@ -17,11 +18,11 @@ export const capacitor: ElementDef<CapacitorEl> = {
   kind: 'capacitor',
   schema: capacitorSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never', state: 'voltage' },
+  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never', state: 'voltage', ...ELEMENT_FACTS.capacitor.roles },
   branches: 0,
   stamp: (el, at) => conductance(at, el.farads, 'c'),
   ports: [{ terminals: [0, 1], current: { kind: 'capacitance', farads: (el) => el.farads } }],
-  sweepable: { field: 'farads', what: 'capacitance', unit: 'F', span: 10 },
+  sweepable: ELEMENT_FACTS.capacitor.sweepable,
   initialCharge: (el, node, put) => {
     const q = el.farads * (el.initialVolts ?? 0);
     put(node(0), q);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_FACTS } from '../../model/elementFacts';
 import { fourNodes, idField, positive } from './schema';
 import { branchIncidence, type ElementDef } from './types';
 
@@ -14,7 +15,7 @@ export const idealTransformer: ElementDef<IdealTransformerEl> = {
   kind: 'ideal-transformer',
   schema: idealTransformerSchema,
   terminals: 4,
-  roles: { galvanic: [[0, 1], [2, 3]], conductsDc: true, fixesVoltage: 'never' },
+  roles: { galvanic: [[0, 1], [2, 3]], conductsDc: true, fixesVoltage: 'never', ...ELEMENT_FACTS['ideal-transformer'].roles },
   branches: 1,
   stamp: (el, at) => {
     const k = at.branch(0);

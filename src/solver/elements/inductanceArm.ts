@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_FACTS } from '../../model/elementFacts';
 import { computableValue, idField, twoNodes } from './schema';
 import type { ElementDef } from './types';
 import { stampInductance } from './inductor';
@@ -15,7 +16,7 @@ export const inductanceArm: ElementDef<InductanceArmEl> = {
   kind: 'inductance-arm',
   schema: inductanceArmSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'dc', state: 'current' },
+  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'dc', state: 'current', ...ELEMENT_FACTS['inductance-arm'].roles },
   branches: 1,
   stamp: stampInductance,
   ports: [{ terminals: [0, 1], current: { kind: 'branch', branch: 0, gain: () => 1 } }],

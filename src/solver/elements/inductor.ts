@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_FACTS } from '../../model/elementFacts';
 import { finite, idField, positive, twoNodes } from './schema';
 import { branchIncidence, type ElementDef, type StampTarget } from './types';
 
@@ -30,11 +31,11 @@ export const inductor: ElementDef<InductorEl> = {
   kind: 'inductor',
   schema: inductorSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'dc', winding: true, state: 'current' },
+  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'dc', state: 'current', ...ELEMENT_FACTS.inductor.roles },
   branches: 1,
   stamp: stampInductance,
   ports: [{ terminals: [0, 1], current: { kind: 'branch', branch: 0, gain: () => 1 } }],
-  sweepable: { field: 'henries', what: 'inductance', unit: 'H', span: 10 },
+  sweepable: ELEMENT_FACTS.inductor.sweepable,
   dcNote: 'a short at 0 Hz',
   initialCurrent: (el) => el.initialAmps ?? 0,
 };

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_FACTS } from '../../model/elementFacts';
 import { idField, positive, twoNodes } from './schema';
 import { conductance, type ElementDef } from './types';
 
@@ -10,9 +11,9 @@ export const resistor: ElementDef<ResistorEl> = {
   kind: 'resistor',
   schema: resistorSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'never', dissipative: true },
+  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'never', ...ELEMENT_FACTS.resistor.roles },
   branches: 0,
   stamp: (el, at) => conductance(at, 1 / el.ohms),
   ports: [{ terminals: [0, 1], current: { kind: 'resistance', ohms: (el) => el.ohms } }],
-  sweepable: { field: 'ohms', what: 'resistance', unit: 'Ω', span: 100 },
+  sweepable: ELEMENT_FACTS.resistor.sweepable,
 };

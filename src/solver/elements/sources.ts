@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_FACTS } from '../../model/elementFacts';
 import { finite, idField, nonNegative, twoNodes } from './schema';
 import { waveformSchema } from './waveform';
 import { branchIncidence, type ElementDef } from './types';
@@ -28,7 +29,7 @@ export const voltageSource: ElementDef<VoltageSourceEl> = {
   kind: 'voltage-source',
   schema: voltageSourceSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'always', source: 'voltage' },
+  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'always', ...ELEMENT_FACTS['voltage-source'].roles },
   branches: 1,
   stamp: (_el, at) => {
     const k = at.branch(0);
@@ -44,7 +45,7 @@ export const currentSource: ElementDef<CurrentSourceEl> = {
   kind: 'current-source',
   schema: currentSourceSchema,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never', source: 'current' },
+  roles: { galvanic: [[0, 1]], conductsDc: false, fixesVoltage: 'never', ...ELEMENT_FACTS['current-source'].roles },
   branches: 0,
   stamp: (_el, at) => {
     at.b(at.node(0), -1);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ELEMENT_FACTS } from '../../model/elementFacts';
 import { idField, increasingTimes, positive, twoNodes } from './schema';
 import { conductance, type ElementDef } from './types';
 
@@ -36,7 +37,7 @@ export const switchDef: ElementDef<SwitchEl> = {
   kind: 'switch',
   schema: switchSchema as z.ZodType<SwitchEl>,
   terminals: 2,
-  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'never', dissipative: true },
+  roles: { galvanic: [[0, 1]], conductsDc: true, fixesVoltage: 'never', ...ELEMENT_FACTS.switch.roles },
   branches: 0,
   stamp: (el, at, state) => conductance(at, 1 / switchOhms(el, state.closed ?? el.closed)),
   ports: [{ terminals: [0, 1], current: { kind: 'resistance', ohms: (el, state) => switchOhms(el, state.closed ?? el.closed) } }],

@@ -6,21 +6,20 @@
  * other solver file asks for an element's kind.
  */
 import type { z } from 'zod';
+import type { FactRoles, Sweepable } from '../../model/elementFacts';
 
-/** What an element is to the graph checks and the power views. */
-export interface ElementRoles {
+/**
+ * What an element is to the graph checks and the power views. Whether it is a
+ * source, a loss or a winding are facts the editor needs too: each definition
+ * takes them from src/model/elementFacts.ts.
+ */
+export interface ElementRoles extends FactRoles {
   /** terminal pairs the element joins into one galvanic part (an ideal transformer: each side, not the two sides) */
   galvanic: readonly (readonly [number, number])[];
   /** passes direct current at 0 Hz (a capacitor and a current source do not) */
   conductsDc: boolean;
   /** fixes the voltage between terminals 0 and 1: always (a voltage source), at 0 Hz only (an inductance, a short there), or never */
   fixesVoltage: 'always' | 'dc' | 'never';
-  /** an independent source: what it drives */
-  source?: 'voltage' | 'current';
-  /** counted as a loss by the power views (a resistor) */
-  dissipative?: boolean;
-  /** an inductor that couplings may name as a winding */
-  winding?: boolean;
   /** what the element stores (time domain): a capacitor's voltage, an inductance's current */
   state?: 'voltage' | 'current';
 }
@@ -63,16 +62,7 @@ export interface PortRule<E> {
   current: CurrentRule<E>;
 }
 
-/** A value the analysis views may sweep or slide (a part's resistance, capacitance, inductance). */
-export interface Sweepable<E> {
-  /** the field it lives in */
-  field: keyof E & string;
-  /** what the value is, for labels ("resistance") */
-  what: string;
-  unit: string;
-  /** the slider spans value/span .. value·span */
-  span: number;
-}
+export type { Sweepable };
 
 export interface ElementDef<E extends { id: string; kind: string; nodes: string[] } = { id: string; kind: string; nodes: string[] }> {
   kind: E['kind'];

@@ -10,13 +10,14 @@ import { CommandButton } from '../CommandButton';
 import { ComparePanel } from './ComparePanel';
 import { PhasorPanel } from './PhasorPanel';
 import { PowerPanel } from './PowerPanel';
+import { SPlanePanel } from './SPlanePanel';
 import { SweepPanel } from './SweepPanel';
 import { TEquivalentPanel } from './TEquivalentPanel';
 import { useAnalysis } from './useSolved';
 import { openView } from '../../store/analysisActions';
 import './analysis.css';
 
-const TITLES = { compare: 'Dot comparison', tequiv: 'T-equivalent', sweep: 'Sweep', phasor: 'Phasors and waveforms', power: 'Power balance' } as const;
+const TITLES = { compare: 'Dot comparison', tequiv: 'T-equivalent', sweep: 'Sweep', phasor: 'Phasors and waveforms', power: 'Power balance', sdomain: 'Poles and zeros (s-domain)' } as const;
 
 const DOCK_KEY = 'coilwright:dock-height';
 const readHeight = () => {
@@ -37,6 +38,7 @@ export function AnalysisTabs() {
       <CommandButton id="analysis-sweep" pressed={view === 'sweep'} />
       <CommandButton id="analysis-phasors" pressed={view === 'phasor'} />
       <CommandButton id="analysis-power" pressed={view === 'power'} />
+      <CommandButton id="analysis-sdomain" pressed={view === 'sdomain'} />
     </div>
   );
 }
@@ -79,6 +81,7 @@ export function AnalysisDock() {
         {view === 'sweep' && <SweepPanel />}
         {view === 'phasor' && <PhasorPanel />}
         {view === 'power' && <PowerPanel />}
+        {view === 'sdomain' && <SPlanePanel />}
       </div>
     </section>
   );

@@ -1,6 +1,6 @@
 /** Dot comparison: the circuit as drawn beside the same circuit with one dot flipped; the sheet changes only on Accept. */
 import { useEffect, useState } from 'react';
-import type { CompareAnswer } from '../../model/analysisMessages';
+import type { CompareAnswer } from '../../worker/protocol';
 import { formatSI } from '../../model/quantity';
 import { acceptDotFlip } from '../../store/analysisActions';
 import { analysisStore } from '../../store/analysisStore';

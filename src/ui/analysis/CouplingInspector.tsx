@@ -1,6 +1,6 @@
 /** Coupling inspector: L1, L2, M and k (M from k or k from M), and the pair's state at the solved currents. */
 import { useEffect, useState } from 'react';
-import type { InspectAnswer } from '../../model/analysisMessages';
+import type { InspectAnswer } from '../../worker/protocol';
 import * as E from '../../model/edits';
 import { formatEditable, formatSI } from '../../model/quantity';
 import { commit } from '../../store/actions';
@@ -11,6 +11,7 @@ import { analysisClient } from './client';
 import { polarText, rectangularText } from './format';
 import { graphCouplingId, selectedCoupling, useSolved } from './useSolved';
 import { kRangeProblem, mRangeProblem } from './couplingRange';
+import { pairEquations } from '../../model/pairEquations';
 import './analysis.css';
 
 export function CouplingInspector() {
@@ -77,6 +78,10 @@ function Inspector({ couplingId }: { couplingId: string }) {
           }}
         />
       </div>
+      <ThreeDomains
+        names={[windings[0].ref, windings[1].ref]} henries={[l1, l2]} mutual={m}
+        dots={[windings[0].dot ?? 'first', windings[1].dot ?? 'first']} frequencyHz={sheet.frequencyHz}
+        initialAmps={[windings[0].initialAmps ?? 0, windings[1].initialAmps ?? 0]} />
       {!solved ? <p className="muted">Waiting for the solve of the latest edit…</p> : error ? <p className="field-error">{error}</p> : answer && (
         <div data-testid="inspector-state">
           <h3 className="sub">At the solved currents ({formatSI(answer.frequencyHz, 'Hz', 4)}, {unit})</h3>
@@ -113,5 +118,25 @@ function SourceRow({ id, z }: { id: string; z: InspectAnswer['sources'][number][
       <dt>{id} sees</dt>
       <dd data-testid={`inspector-zin-${id}`}>{polarText(z, 'Ω')}<br /><small>{rectangularText(z, 'Ω')}</small></dd>
     </>
+  );
+}
+
+/** The pair's law in the time, phasor and s domains, with the present values and the sign the dots give. */
+function ThreeDomains(props: Parameters<typeof pairEquations>[0]) {
+  const eq = pairEquations(props);
+  const rows = [['Time', eq.time], ['Phasor', eq.phasor], ['s-domain', eq.s]] as const;
+  return (
+    <details className="three-domains" data-testid="inspector-equations" open>
+      <summary>The pair in three domains (dots give {eq.sign > 0 ? '+M' : '−M'})</summary>
+      {rows.map(([title, pair]) => (
+        <div key={title} data-testid={`equations-${title === 'Time' ? 'time' : title === 'Phasor' ? 'phasor' : 's'}`}>
+          <h3 className="sub">{title}</h3>
+          {pair.map((e) => (
+            <p key={e.symbols} className="equation"><code>{e.symbols}</code><br /><code>{e.values}</code></p>
+          ))}
+        </div>
+      ))}
+      <p className="muted small">The sign of the M terms is d1·d2, with d = +1 for a dot on a winding’s first terminal and −1 on its second; i(0) are the windings’ initial currents (details panel).</p>
+    </details>
   );
 }

@@ -1,4 +1,5 @@
 /** Phasor diagram of chosen voltages and currents to scale (separate scales for V and A), and their waveforms over two periods. */
+import { sourceKindOf } from '../../model/elementFacts';
 import { useMemo, useState } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { line } from 'd3-shape';
@@ -32,8 +33,8 @@ const R = 130;
 export function PhasorPanel() {
   const solved = useSolved();
   const all = useMemo(() => (solved ? candidates(solved.result) : []), [solved]);
-  const windings = solved?.model.elements.filter((e) => e.kind === 'inductor' && (solved.model.couplings ?? []).some((c) => c.windings.includes(e.id))).map((e) => e.id) ?? [];
-  const firstSource = solved?.model.elements.find((e) => e.kind === 'voltage-source' || e.kind === 'current-source')?.id;
+  const windings = solved?.model.elements.filter((e) => (solved.model.couplings ?? []).some((c) => c.windings.includes(e.id))).map((e) => e.id) ?? [];
+  const firstSource = solved?.model.elements.find((e) => sourceKindOf(e))?.id;
   const defaults = windings.length ? windings.slice(0, 2).flatMap((w) => [`v:${w}`, `i:${w}`]) : firstSource ? [`v:${firstSource}`, `i:${firstSource}`] : [];
   const [chosen, setChosen] = useState<string[] | null>(null);
   const keys = chosen ?? defaults;

@@ -1,6 +1,7 @@
 /** Power balance: P, Q, |S| and power factor per part; totals; efficiency from a source to a load; the Tellegen check. */
+import { isDissipative, sourceKindOf } from '../../model/elementFacts';
 import { useEffect, useState } from 'react';
-import type { PowerAnswer } from '../../model/analysisMessages';
+import type { PowerAnswer } from '../../worker/protocol';
 import { formatSI } from '../../model/quantity';
 import { analysisClient } from './client';
 import { useSolved } from './useSolved';
@@ -26,8 +27,9 @@ export function PowerPanel() {
   }, [solved?.result]);
   if (error) return <p className="field-error">{error}</p>;
   if (!answer) return <p className="muted">{solved ? 'Adding up…' : 'Waiting for the solve of the latest edit…'}</p>;
-  const sources = answer.rows.filter((r) => r.kind === 'voltage-source' || r.kind === 'current-source');
-  const loads = answer.rows.filter((r) => r.kind === 'resistor');
+  const byId = new Map(solved?.model.elements.map((e) => [e.id, e]) ?? []);
+  const sources = answer.rows.filter((r) => byId.has(r.id) && sourceKindOf(byId.get(r.id)!));
+  const loads = answer.rows.filter((r) => byId.has(r.id) && isDissipative(byId.get(r.id)!));
   const src = sources.find((r) => r.id === source) ?? sources[0];
   const ld = loads.find((r) => r.id === load) ?? loads[loads.length - 1];
   const delivered = src ? -src.watts : 0;

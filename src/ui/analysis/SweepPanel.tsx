@@ -2,7 +2,8 @@
 import { useEffect, useMemo, useState } from 'react';
 import { formatSI, parseSimple } from '../../model/quantity';
 import type { GraphModel } from '../../model/graph';
-import type { SweepQuantity } from '../../model/analysisMessages';
+import { sourceKindOf, sweepableOf } from '../../model/elementFacts';
+import type { SweepQuantity } from '../../worker/protocol';
 import { analysisStore, type SliderTarget, type SweepSettings } from '../../store/analysisStore';
 import { useEditorState } from '../editorContext';
 import { Plot, type PlotSeries } from './Plot';
@@ -24,8 +25,8 @@ function options(model: GraphModel) {
   const out: { value: string; label: string }[] = [];
   for (const n of nodes) out.push({ value: encodeQ({ kind: 'node', node: n }), label: `V(${n}) node voltage` });
   for (const e of model.elements) {
-    if (e.kind === 'ideal-transformer') continue;
-    if (e.kind === 'voltage-source' || e.kind === 'current-source') out.push({ value: encodeQ({ kind: 'zin', source: e.id }), label: `Z seen by ${e.id}` });
+    if (e.nodes.length > 2) continue; // a two-port (ideal transformer) reports its sides in pairs
+    if (sourceKindOf(e)) out.push({ value: encodeQ({ kind: 'zin', source: e.id }), label: `Z seen by ${e.id}` });
     out.push({ value: encodeQ({ kind: 'current', element: e.id }), label: `I(${e.id}) current` });
     out.push({ value: encodeQ({ kind: 'voltage', element: e.id }), label: `V(${e.id}) across` });
     out.push({ value: encodeQ({ kind: 'power', element: e.id }), label: `S into ${e.id} (power)` });
@@ -37,7 +38,7 @@ function options(model: GraphModel) {
 function namesIn(model: GraphModel, q: SweepQuantity): boolean {
   switch (q.kind) {
     case 'node': return model.elements.some((e) => e.nodes.includes(q.node));
-    case 'zin': return model.elements.some((e) => e.id === q.source && (e.kind === 'voltage-source' || e.kind === 'current-source'));
+    case 'zin': return model.elements.some((e) => e.id === q.source && !!sourceKindOf(e));
     case 'ratio': return namesIn(model, q.num) && namesIn(model, q.den);
     default: return model.elements.some((e) => e.id === q.element);
   }
@@ -49,9 +50,8 @@ function sliderTargets(model: GraphModel): (SliderTarget & { value: number })[] 
     if (c.k !== undefined) out.push({ kind: 'coupling', id: c.id, label: `k of ${c.windings.join('–')}`, min: 0, max: 1, log: false, unit: '', value: c.k });
   }
   for (const e of model.elements) {
-    if (e.kind === 'capacitor') out.push({ kind: 'part', id: e.id, label: `${e.id} capacitance`, min: e.farads / 10, max: e.farads * 10, log: true, unit: 'F', value: e.farads });
-    if (e.kind === 'resistor') out.push({ kind: 'part', id: e.id, label: `${e.id} resistance`, min: e.ohms / 100, max: e.ohms * 100, log: true, unit: 'Ω', value: e.ohms });
-    if (e.kind === 'inductor') out.push({ kind: 'part', id: e.id, label: `${e.id} inductance`, min: e.henries / 10, max: e.henries * 10, log: true, unit: 'H', value: e.henries });
+    const v = sweepableOf(e);
+    if (v) out.push({ kind: 'part', id: e.id, label: `${e.id} ${v.what}`, min: v.value / v.span, max: v.value * v.span, log: true, unit: v.unit, value: v.value });
   }
   return out;
 }
@@ -84,7 +84,7 @@ export function SweepPanel() {
     }
     if (kept.length !== settings.traces.length) setSettings({ traces: kept });
     if (kept.length) return;
-    const src = model.elements.find((e) => e.kind === 'voltage-source' || e.kind === 'current-source');
+    const src = model.elements.find((e) => sourceKindOf(e));
     const base = f0 > 0 ? f0 : 1000;
     const from = base / 10;
     const to = base * 10;

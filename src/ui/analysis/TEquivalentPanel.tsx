@@ -1,6 +1,6 @@
 /** T-equivalent of a linked pair: arms, notes, a port check; draw it on the sheet in place, and put the pair back. */
 import { useEffect, useState } from 'react';
-import type { TAnswer } from '../../model/analysisMessages';
+import type { TAnswer } from '../../worker/protocol';
 import { formatSI } from '../../model/quantity';
 import { portAgreement } from '../../model/resultCompare';
 import { drawTEquivalent, latestSubstitution } from '../../store/analysisActions';

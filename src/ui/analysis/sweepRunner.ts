@@ -1,6 +1,7 @@
 /** Starts, restarts and cancels sweeps in the analysis worker; the latest start wins. */
 import type { GraphModel } from '../../model/graph';
-import type { SweepQuantity } from '../../model/analysisMessages';
+import { withSweptValue } from '../../model/elementFacts';
+import type { SweepQuantity } from '../../worker/protocol';
 import { CancelledError } from '../../store/analysisBridge';
 import { analysisStore, type SliderTarget, type SweepTrace } from '../../store/analysisStore';
 import { analysisClient } from './client';
@@ -20,16 +21,7 @@ export function withSlider(model: GraphModel, target: SliderTarget, value: numbe
   }
   return {
     ...model,
-    elements: model.elements.map((e) => {
-      if (e.id !== target.id) return e;
-      switch (e.kind) {
-        case 'resistor': return { ...e, ohms: value };
-        case 'capacitor': return { ...e, farads: value };
-        case 'inductor': case 'inductance-arm': return { ...e, henries: value };
-        case 'voltage-source': case 'current-source': return { ...e, magnitude: value };
-        default: return e;
-      }
-    }),
+    elements: model.elements.map((e) => (e.id === target.id ? withSweptValue(e, value) : e)),
   };
 }
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { SweepQuantity } from '../../../src/model/analysisMessages';
+import type { SweepQuantity } from '../../../src/worker/protocol';
 import { decodeQ, encodeQ, labelOf, unitOf, withSlider } from '../../../src/ui/analysis/sweepRunner';
 import { model } from '../../helpers';
 

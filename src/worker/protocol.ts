@@ -2,9 +2,11 @@
  * Messages between the editor and the analysis worker (plain data). The
  * analysis worker answers questions about a solved circuit (coupling state,
  * dot comparison, T-equivalent check, power) and runs frequency sweeps in
- * chunks that report progress and can be cancelled.
+ * chunks that report progress and can be cancelled. The answers are built
+ * from the solver's own types; the editor imports these types only.
  */
-import type { ComplexJson, GraphModel, SolveResult } from './graph';
+import type { ComplexJson, GraphModel, SolveResult, TransferResult } from '../model/graph';
+import type { Change, PairState, PowerSummary, TEquivalent } from '../solver';
 
 /** What a sweep trace plots. */
 export type SweepQuantity =
@@ -29,24 +31,18 @@ export interface SweepSpec {
 
 export interface PortZ { z: ComplexJson | null }
 
-export interface InspectAnswer {
-  windings: [string, string];
-  l1: number;
-  l2: number;
-  m: number;
-  k: number;
-  flux: [ComplexJson, ComplexJson];
-  energyJ: number;
-  interaction: 'aiding' | 'opposing' | 'none';
+/** The pair's state at the solved currents (the solver's PairState), with what the inspector shows around it. */
+export type InspectAnswer = Omit<PairState, 'coupling' | 'mutualTerm'> & {
   /** reflected impedance into each winding's loop, (ωM)²/Z22 */
   reflected: [ComplexJson, ComplexJson];
   connection: { kind: 'series' | 'parallel'; sense: 'aiding' | 'opposing'; inductance: number; otherSense: number } | null;
   sources: { id: string; z: ComplexJson | null }[];
   frequencyHz: number;
   amplitudes: 'rms' | 'peak';
-}
+};
 
-export interface ChangeRow { label: string; quantity: 'voltage' | 'current' | 'power'; before: ComplexJson; after: ComplexJson; delta: ComplexJson }
+/** One change the dot flip makes (the solver's Change, without its target). */
+export type ChangeRow = Omit<Change, 'target'>;
 
 export interface CompareAnswer {
   winding: string;
@@ -56,30 +52,27 @@ export interface CompareAnswer {
   connection: { kind: 'series' | 'parallel'; sense: 'aiding' | 'opposing'; aiding: number; opposing: number; measuredBefore: number | null; measuredAfter: number | null } | null;
 }
 
-export interface TAnswer {
-  windings: [string, string];
+/** The solver's T-equivalent of a pair, with the pins of its outer ends and a port check of the substitution. */
+export type TAnswer = Pick<TEquivalent, 'windings' | 'l1' | 'l2' | 'm' | 'arm1' | 'arm2' | 'shunt' | 'negativeArms' | 'notes'> & {
   /** winding pins (0 or 1) that are the outer ends of the T's series arms */
   outerPins: [0 | 1, 0 | 1];
-  l1: number;
-  l2: number;
-  m: number;
-  arm1: number;
-  arm2: number;
-  shunt: number;
+  /** whether the two windings share a terminal */
   shared: boolean;
-  negativeArms: string[];
-  notes: string[];
   /** largest relative difference of the port voltages and currents between the pair and its T (graph-level check) */
   check: { maxRel: number; compared: number };
-}
+};
 
-export interface PowerAnswer {
-  rows: { id: string; kind: string; watts: number; vars: number; va: number; powerFactor: number | null; sense: 'lagging' | 'leading' | null }[];
-  delivered: { watts: number; vars: number };
-  dissipated: number;
-  tellegen: { watts: number; vars: number; relative: number };
+/** The solver's power summary, with the amplitudes it was read at. */
+export type PowerAnswer = Pick<PowerSummary, 'rows' | 'delivered' | 'dissipated'> & {
+  tellegen: Pick<PowerSummary['tellegen'], 'watts' | 'vars' | 'relative'>;
   amplitudes: 'rms' | 'peak';
-}
+};
+
+/** The solver's transfer function, with the natural frequencies this input and output do not see marked. */
+export type TransferAnswer = TransferResult & {
+  /** for each entry of naturalFrequencies: whether it is a pole of this (minimal) H */
+  seen: boolean[];
+};
 
 export interface SweepAnswer {
   frequenciesHz: number[];
@@ -94,6 +87,7 @@ export type AnalysisRequest =
   | { id: number; kind: 'tcheck'; model: GraphModel; coupling: string }
   | { id: number; kind: 'power'; model: GraphModel; result: SolveResult }
   | { id: number; kind: 'sweep'; model: GraphModel; spec: SweepSpec }
+  | { id: number; kind: 'transfer'; model: GraphModel; input: string; output: string }
   | { id: number; kind: 'cancel'; target: number };
 
 export type AnalysisReply =
