@@ -5,6 +5,7 @@
  * chunks that report progress and can be cancelled.
  */
 import type { ComplexJson, GraphModel, SolveResult } from './graph';
+import type { ValueTarget } from './valueTarget';
 
 /** What a sweep trace plots. */
 export type SweepQuantity =
@@ -25,6 +26,8 @@ export interface SweepSpec {
   chunk?: number;
   /** for tests: after the first chunk the sweep waits for a cancel, so it can never finish before one */
   hold?: boolean;
+  /** a value sweep: `from`…`to` are values of this target, solved at one frequency */
+  over?: { target: ValueTarget; frequencyHz: number };
 }
 
 export interface PortZ { z: ComplexJson | null }
@@ -82,7 +85,10 @@ export interface PowerAnswer {
 }
 
 export interface SweepAnswer {
+  /** the frequency of each point (all the same in a value sweep) */
   frequenciesHz: number[];
+  /** a value sweep: the value of each point */
+  values?: number[];
   /** one complex series per requested quantity (re and im interleaved: re0, im0, re1, im1 …) */
   traces: number[][];
   ms: number;

@@ -6,7 +6,7 @@ import type { ComplexJson, SolveResult } from '../../model/graph';
 import { formatAngle, formatSI } from '../../model/quantity';
 import { cabs, cdeg } from './format';
 import { niceCeil, waveform } from './plotMath';
-import { TRACE_COLOURS } from './SweepPanel';
+import { TRACE_COLOURS } from './sweepPlots';
 import { useSolved } from './useSolved';
 
 interface Pick { key: string; label: string; unit: 'V' | 'A'; z: ComplexJson }

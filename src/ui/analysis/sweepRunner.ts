@@ -4,6 +4,7 @@ import type { SweepQuantity } from '../../model/analysisMessages';
 import { CancelledError } from '../../store/analysisBridge';
 import { analysisStore, type SliderTarget, type SweepTrace } from '../../store/analysisStore';
 import { analysisClient } from './client';
+import { withValue } from '../../model/valueTarget';
 
 let running: { cancel: () => void } | null = null;
 
@@ -15,22 +16,7 @@ const setSweep = (patch: Partial<ReturnType<typeof analysisStore.getState>['swee
 
 /** The model with the slider's value put in. */
 export function withSlider(model: GraphModel, target: SliderTarget, value: number): GraphModel {
-  if (target.kind === 'coupling') {
-    return { ...model, couplings: (model.couplings ?? []).map((c) => (c.id === target.id ? { id: c.id, windings: c.windings, k: value } : c)) };
-  }
-  return {
-    ...model,
-    elements: model.elements.map((e) => {
-      if (e.id !== target.id) return e;
-      switch (e.kind) {
-        case 'resistor': return { ...e, ohms: value };
-        case 'capacitor': return { ...e, farads: value };
-        case 'inductor': case 'inductance-arm': return { ...e, henries: value };
-        case 'voltage-source': case 'current-source': return { ...e, magnitude: value };
-        default: return e;
-      }
-    }),
-  };
+  return withValue(model, target, value);
 }
 
 export function runSweep(model: GraphModel): void {
@@ -40,7 +26,9 @@ export function runSweep(model: GraphModel): void {
   const m = slider ? withSlider(model, slider.target, slider.value) : model;
   const quantities: SweepQuantity[] = settings.traces.map((t) => t.quantity);
   setSweep({ status: 'running', progress: 0, message: '' });
-  const job = analysisClient().sweep(m, { from: settings.from, to: settings.to, points: settings.points, log: settings.log, quantities, chunk: 50, hold: sweepTestHold.on }, (done, total) => {
+  const over = settings.over;
+  const range = over ? { from: over.from, to: over.to, over: { target: over.target, frequencyHz: model.frequencyHz } } : { from: settings.from, to: settings.to };
+  const job = analysisClient().sweep(m, { ...range, points: settings.points, log: settings.log, quantities, chunk: over ? 10 : 50, hold: sweepTestHold.on }, (done, total) => {
     if (running === job) setSweep({ progress: done / total });
   });
   running = job;
@@ -49,7 +37,7 @@ export function runSweep(model: GraphModel): void {
     (answer) => {
       if (running !== job) return;
       running = null;
-      setSweep({ status: 'done', progress: 1, answer, shown, message: '' });
+      setSweep({ status: 'done', progress: 1, answer, shown, shownOver: over, message: '' });
     },
     (e: Error) => {
       if (running !== job) return;
