@@ -178,13 +178,39 @@ export function panBy(store: EditorStore, dx: number, dy: number): void {
   store.setState({ view: { ...v, x: v.x + dx, y: v.y + dy } });
 }
 
-/** Fit the sheet's contents into a viewport of the given size. */
-export function fitView(store: EditorStore, width: number, height: number): void {
-  const s = store.getState().sheet;
-  if (!s.parts.length) return store.setState({ view: { x: width / 2, y: height / 2, zoom: 1.5 } });
+/** The box the sheet's contents take in sheet units, with room for their designators and tags; null for an empty sheet. */
+export function contentBounds(s: Sheet): { x0: number; y0: number; x1: number; y1: number } | null {
+  if (!s.parts.length && !s.wires.length) return null;
   let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
   for (const p of s.parts) { x0 = Math.min(x0, p.x - 140); y0 = Math.min(y0, p.y - 60); x1 = Math.max(x1, p.x + 120); y1 = Math.max(y1, p.y + 50); }
   for (const w of s.wires) for (let i = 0; i < w.pts.length; i += 2) { x0 = Math.min(x0, w.pts[i] - 40); x1 = Math.max(x1, w.pts[i] + 40); y0 = Math.min(y0, w.pts[i + 1] - 30); y1 = Math.max(y1, w.pts[i + 1] + 30); }
+  return { x0, y0, x1, y1 };
+}
+
+/**
+ * Zoom by a key or button: about the middle of the view when the drawing is
+ * there, else about the point of the drawing nearest the middle, so a zoom
+ * never pushes the circuit out of view.
+ */
+export function zoomView(store: EditorStore, factor: number, width: number, height: number): void {
+  const s = store.getState();
+  const b = contentBounds(s.sheet);
+  let sx = width / 2;
+  let sy = height / 2;
+  if (b) {
+    const c = screenToWorld(s.view, sx, sy);
+    const p = worldToScreen(s.view, Math.min(b.x1, Math.max(b.x0, c.x)), Math.min(b.y1, Math.max(b.y0, c.y)));
+    sx = Math.min(width, Math.max(0, p.x));
+    sy = Math.min(height, Math.max(0, p.y));
+  }
+  zoomAt(store, factor, sx, sy);
+}
+
+/** Fit the sheet's contents into a viewport of the given size. */
+export function fitView(store: EditorStore, width: number, height: number): void {
+  const b = contentBounds(store.getState().sheet);
+  if (!b) return store.setState({ view: { x: width / 2, y: height / 2, zoom: 1.5 } });
+  const { x0, y0, x1, y1 } = b;
   const zoom = Math.min(2, Math.max(0.1, Math.min(width / (x1 - x0 + 40), height / (y1 - y0 + 60))));
   store.setState({ view: { zoom, x: width / 2 - ((x0 + x1) / 2) * zoom, y: height / 2 - ((y0 + y1) / 2) * zoom } });
 }

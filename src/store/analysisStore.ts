@@ -42,6 +42,8 @@ export interface AnalysisState {
     shownOver?: ValueSweep | null;
     message: string;
     slider: { target: SliderTarget; value: number } | null;
+    /** settings kept from an earlier visit whose sweep had run: it runs again when the view shows */
+    autoRun?: boolean;
   };
   /** the winding whose dot the comparison flips */
   compareWinding: string | null;

@@ -116,6 +116,12 @@ export function SweepPanel({ marks: extraMarks = [] }: { marks?: PlotMark[] } = 
       Object.assign(patch, { from: base / 10, to: base * 10, traces: src ? [traceOf({ kind: 'zin', source: src.id })] : [] });
     }
     if (Object.keys(patch).length) setSettings(patch);
+    // settings kept from an earlier visit, whose sweep had run: run it again
+    const now = analysisStore.getState().sweep;
+    if (now.autoRun) {
+      analysisStore.setState({ sweep: { ...now, autoRun: false } });
+      if (now.settings.traces.length && now.status === 'idle') runSweep(model);
+    }
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [model]);
 

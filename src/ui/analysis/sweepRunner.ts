@@ -37,11 +37,14 @@ export function runSweep(model: GraphModel): void {
     (answer) => {
       if (running !== job) return;
       running = null;
+      // another sheet opened meanwhile (its settings replaced these): the answer is not its
+      if (analysisStore.getState().sweep.status !== 'running') return;
       setSweep({ status: 'done', progress: 1, answer, shown, shownOver: over, message: '' });
     },
     (e: Error) => {
       if (running !== job) return;
       running = null;
+      if (analysisStore.getState().sweep.status !== 'running') return;
       if (e instanceof CancelledError) setSweep({ status: 'cancelled', message: 'Sweep cancelled; the last complete plot stays' });
       else setSweep({ status: 'failed', message: e.message });
     },
