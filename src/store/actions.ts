@@ -188,22 +188,28 @@ export function contentBounds(s: Sheet): { x0: number; y0: number; x1: number; y
 }
 
 /**
- * Zoom by a key or button: about the middle of the view when the drawing is
- * there, else about the point of the drawing nearest the middle, so a zoom
- * never pushes the circuit out of view.
+ * Zoom by a key or button: about the middle of the view while some of the
+ * drawing stays in view that way; else about the part nearest the middle,
+ * held inside the view, so a zoom never pushes the circuit out of view.
  */
 export function zoomView(store: EditorStore, factor: number, width: number, height: number): void {
   const s = store.getState();
-  const b = contentBounds(s.sheet);
-  let sx = width / 2;
-  let sy = height / 2;
-  if (b) {
-    const c = screenToWorld(s.view, sx, sy);
-    const p = worldToScreen(s.view, Math.min(b.x1, Math.max(b.x0, c.x)), Math.min(b.y1, Math.max(b.y0, c.y)));
-    sx = Math.min(width, Math.max(0, p.x));
-    sy = Math.min(height, Math.max(0, p.y));
-  }
-  zoomAt(store, factor, sx, sy);
+  const zoom = Math.min(8, Math.max(0.1, s.view.zoom * factor));
+  const c = screenToWorld(s.view, width / 2, height / 2);
+  const middle: View = { zoom, x: width / 2 - c.x * zoom, y: height / 2 - c.y * zoom };
+  // part origins, or the wire points on a sheet of wires alone
+  const points: Point[] = s.sheet.parts.map((p) => ({ x: p.x, y: p.y }));
+  if (!points.length) for (const w of s.sheet.wires) for (let i = 0; i < w.pts.length; i += 2) points.push({ x: w.pts[i], y: w.pts[i + 1] });
+  const shown = (v: View, p: Point) => { const q = worldToScreen(v, p.x, p.y); return q.x >= 0 && q.x <= width && q.y >= 0 && q.y <= height; };
+  if (!points.length || points.some((p) => shown(middle, p))) return store.setState({ view: middle });
+  let anchor = points[0];
+  for (const p of points) if ((p.x - c.x) ** 2 + (p.y - c.y) ** 2 < (anchor.x - c.x) ** 2 + (anchor.y - c.y) ** 2) anchor = p;
+  // where the nearest point is on screen, brought inside the view with a margin; it stays there while zooming
+  const at = worldToScreen(s.view, anchor.x, anchor.y);
+  const mx = Math.min(40, width / 4), my = Math.min(40, height / 4);
+  const sx = Math.min(width - mx, Math.max(mx, at.x));
+  const sy = Math.min(height - my, Math.max(my, at.y));
+  store.setState({ view: { zoom, x: sx - anchor.x * zoom, y: sy - anchor.y * zoom } });
 }
 
 /** Fit the sheet's contents into a viewport of the given size. */
