@@ -370,3 +370,47 @@ test('3: the sweep plot fits its pane at 1024×768: every tick and label inside 
   // the 10 kHz tick is there
   await expect(page.getByTestId('plot-magnitude').locator('text[data-tick="10000"]')).toHaveText('10 kHz');
 });
+
+test('5: parts placed by number key land at free spots beside the last one, not on top of each other', async ({ page }) => {
+  await page.goto('/');
+  await page.getByTestId('sheet-canvas').focus();
+  await page.keyboard.press('Alt+n');
+  for (let i = 0; i < 3; i++) {
+    await page.keyboard.press('4');
+    await page.keyboard.press('Enter');
+    await expect.poll(async () => (await state(page)).sheet.parts.length).toBe(i + 1);
+  }
+  const parts = (await state(page)).sheet.parts as { x: number; y: number }[];
+  // three distinct places, each within a few grid steps of the one before (beside the last one)
+  const keys = new Set(parts.map((p) => `${p.x},${p.y}`));
+  expect(keys.size).toBe(3);
+  for (let i = 1; i < parts.length; i++) {
+    const d = Math.hypot(parts[i].x - parts[i - 1].x, parts[i].y - parts[i - 1].y);
+    expect(d).toBeGreaterThan(0);
+    expect(d).toBeLessThan(400);
+  }
+});
+
+test('3: notices fold into one strip with counts that expands on demand; each view opens at its top', async ({ page }) => {
+  await page.setViewportSize({ width: 1024, height: 768 });
+  await page.goto('/');
+  await example(page, 'wireless');
+  const strip = page.getByTestId('notices');
+  const notes = (await state(page)).solve.result.warnings.length;
+  expect(notes).toBeGreaterThan(0);
+  // folded: one count line naming how many notes there are, no note bars
+  await expect(page.getByTestId('notice-counts')).toContainText(`${notes} note${notes === 1 ? '' : 's'}`);
+  await expect(page.getByTestId('warning')).toHaveCount(0);
+  const folded = (await strip.boundingBox())!.height;
+  // on demand: every note listed
+  await page.getByTestId('notices-toggle').click();
+  await expect(page.getByTestId('warning')).toHaveCount(notes);
+  expect((await strip.boundingBox())!.height).toBeGreaterThan(folded);
+  await page.getByTestId('notices-toggle').click();
+  await expect(page.getByTestId('warning')).toHaveCount(0);
+  // a view scrolled down, then another view: it starts at its top
+  await openView(page, /^Power balance/);
+  await page.locator('.dock-body').evaluate((el) => { el.scrollTop = el.scrollHeight; });
+  await openView(page, /^Phasors/);
+  await expect.poll(() => page.locator('.dock-body').evaluate((el) => el.scrollTop)).toBe(0);
+});

@@ -1,4 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
+import { readFileSync } from 'node:fs';
 import { shot } from './helpers';
 
 type Box = { x0: number; y0: number; x1: number; y1: number; text: string };
@@ -152,6 +153,15 @@ test('a 1:200 ratio is typed as the trade writes it and shown that way; a refusa
   await page.keyboard.press('Escape');
   await page.keyboard.press(']');
   await expect(page.getByTestId('field-value')).toHaveValue('1:200');
+  // the drawing writes it the same way (the SVG sheet carries the drawing's own text)
+  await page.getByTestId('sheet-canvas').focus();
+  const [dl] = await Promise.all([page.waitForEvent('download'), page.keyboard.press('Control+Shift+S')]);
+  const svg = readFileSync((await dl.path())!, 'utf8');
+  expect(svg).toContain('1 : 200');
+  expect(svg).not.toContain('0.005 : 1');
+  await page.getByTestId('sheet-canvas').focus();
+  await page.keyboard.press('Escape');
+  await page.keyboard.press(']');
   await page.getByTestId('field-value').fill('x:1');
   await page.getByTestId('field-value').press('Enter');
   await expect(page.locator('.field-error')).toContainText('"x" is not a known name');
