@@ -414,3 +414,34 @@ test('3: notices fold into one strip with counts that expands on demand; each vi
   await openView(page, /^Phasors/);
   await expect.poll(() => page.locator('.dock-body').evaluate((el) => el.scrollTop)).toBe(0);
 });
+
+test('10: the new-sheet notice goes with its sheet; a long title keeps the top bar on one line', async ({ page }) => {
+  await page.goto('/');
+  await expect.poll(async () => (await state(page)).solve.status).toBe('solved');
+  const barHeight = (await page.locator('.topbar').boundingBox())!.height;
+  await page.getByTestId('sheet-canvas').focus();
+  await page.keyboard.press('Alt+n');
+  await expect(page.getByTestId('message')).toContainText('New empty sheet');
+  // another sheet: the notice about the empty one is gone
+  await example(page, 'wireless');
+  await expect(page.getByTestId('message').filter({ hasText: 'New empty sheet' })).toHaveCount(0);
+  // a long title, given in the sheet list
+  await page.getByRole('button', { name: /Sheets/ }).click();
+  const title = (await state(page)).sheet.title;
+  await page.getByRole('button', { name: `Rename ${title}` }).click();
+  await page.getByTestId('rename-input').fill('Wireless charging pad, 85 kHz, series-series compensation, bench prototype revision three for the lab');
+  await page.getByTestId('rename-input').press('Enter');
+  await expect.poll(async () => (await state(page)).sheet.title).toMatch(/^Wireless charging pad/);
+  await page.keyboard.press('Escape');
+  expect((await page.locator('.topbar').boundingBox())!.height).toBeCloseTo(barHeight, 0);
+  // the title itself is one line, cut with an ellipsis, and every top-bar control sits inside the bar
+  const bar = (await page.locator('.topbar').boundingBox())!;
+  const shown = page.locator('.topbar > .sheet-title');
+  await expect(shown).toContainText('Wireless charging pad');
+  const lineHeight = await shown.evaluate((el) => parseFloat(getComputedStyle(el).lineHeight) || parseFloat(getComputedStyle(el).fontSize) * 1.5);
+  expect((await shown.boundingBox())!.height).toBeLessThanOrEqual(lineHeight + 1);
+  for (const b of await page.locator('.topbar button').all()) {
+    const r = await b.boundingBox();
+    if (r) expect(r.y + r.height).toBeLessThanOrEqual(bar.y + bar.height + 0.5);
+  }
+});
