@@ -29,6 +29,7 @@ test('sweep finds the resonance of the 85 kHz pair within 1 % of 1/(2π√(LC))'
   console.log(`resonance marker ${nearest.toFixed(1)} Hz, closed form ${f0.toFixed(1)} Hz; ${await page.getByTestId('sweep-status').textContent()}`);
   // cursor readout
   const plot = page.getByTestId('plot-magnitude').locator('svg');
+  await plot.scrollIntoViewIfNeeded();
   const box = (await plot.boundingBox())!;
   await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
   await expect(page.getByTestId('sweep-readout')).toContainText('Hz');

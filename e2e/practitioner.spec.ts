@@ -1,4 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
+import { readFileSync } from 'node:fs';
 import { shot } from './helpers';
 
 type Box = { x0: number; y0: number; x1: number; y1: number; text: string };
@@ -77,9 +78,12 @@ test('the whole job from the keyboard alone: draw, couple, set values, solve, ex
   const w = 2 * Math.PI * 50, L = 0.01, M = 0.95 * L, R = 100;
   const den = { re: -w * L * w * L + w * w * M * M, im: w * L * R };
   const expected = (w * M * 230) / Math.hypot(den.re, den.im);
-  await expect.poll(async () => Number(await page.locator('[data-testid="readings-parts"] tr[data-name="R1"] td[data-col="i"]').getAttribute('data-mag'))).toBeGreaterThan(0);
-  const shown = Number(await page.locator('[data-testid="readings-parts"] tr[data-name="R1"] td[data-col="i"]').getAttribute('data-mag'));
-  expect(Math.abs(shown / expected - 1)).toBeLessThan(1e-9);
+  // the source's 230 V is solved once its entry is: wait for the sheet to hold it, then for the readings of that sheet
+  await expect.poll(async () => (await state(page)).sheet.parts.find((p: any) => p.ref === 'V1').value).toBe(230);
+  await expect.poll(async () => {
+    const shown = Number(await page.locator('[data-testid="readings-parts"] tr[data-name="R1"] td[data-col="i"]').getAttribute('data-mag'));
+    return Math.abs(shown / expected - 1);
+  }).toBeLessThan(1e-9);
   await shot(page, info, 'keyboard-drawn');
   // export: the command list finds the SVG picture, Enter saves it
   await page.getByTestId('sheet-canvas').focus();
@@ -149,6 +153,15 @@ test('a 1:200 ratio is typed as the trade writes it and shown that way; a refusa
   await page.keyboard.press('Escape');
   await page.keyboard.press(']');
   await expect(page.getByTestId('field-value')).toHaveValue('1:200');
+  // the drawing writes it the same way (the SVG sheet carries the drawing's own text)
+  await page.getByTestId('sheet-canvas').focus();
+  const [dl] = await Promise.all([page.waitForEvent('download'), page.keyboard.press('Control+Shift+S')]);
+  const svg = readFileSync((await dl.path())!, 'utf8');
+  expect(svg).toContain('1 : 200');
+  expect(svg).not.toContain('0.005 : 1');
+  await page.getByTestId('sheet-canvas').focus();
+  await page.keyboard.press('Escape');
+  await page.keyboard.press(']');
   await page.getByTestId('field-value').fill('x:1');
   await page.getByTestId('field-value').press('Enter');
   await expect(page.locator('.field-error')).toContainText('"x" is not a known name');

@@ -5,6 +5,8 @@ import { isolationTransformerSheet } from './model/examples/isolation';
 import { newId } from './model/ids';
 import { createEditorStore } from './store/createEditorStore';
 import { attachAutosave } from './store/autosave';
+import { attachSweepKeep } from './store/sweepKeep';
+import { attachHistoryKeep } from './store/historyKeep';
 import { readIndex, readRev, restoreCurrent } from './store/library';
 import { attachPrefs } from './store/prefs';
 import { attachTabGuard, noLocks, webLocks } from './store/tabGuard';
@@ -35,8 +37,20 @@ const guard = attachTabGuard(store, storage, navigator.locks ? webLocks(navigato
   },
 });
 const autosave = attachAutosave(store, storage);
-window.addEventListener('pagehide', () => autosave.flush());
-document.addEventListener('visibilitychange', () => document.visibilityState === 'hidden' && autosave.flush());
+attachSweepKeep(store, storage);
+// undo history in the tab's session storage (kept across reloads of this tab only); without it, history lasts the visit
+let history: { flush(): void } | null = null;
+try {
+  history = attachHistoryKeep(store, window.sessionStorage);
+} catch {
+  /* session storage refused */
+}
+const flushAll = () => {
+  autosave.flush();
+  history?.flush();
+};
+window.addEventListener('pagehide', flushAll);
+document.addEventListener('visibilitychange', () => document.visibilityState === 'hidden' && flushAll());
 
 // the solve worker, with faults a browser test can put in: a worker stopped without a word, or new workers that never answer
 const faults = { hang: false };

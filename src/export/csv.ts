@@ -69,6 +69,8 @@ export interface SweepTable {
   amplitudes?: 'rms' | 'peak';
   frequenciesHz: ArrayLike<number>;
   traces: { label: string; unit: string; values: ArrayLike<number> }[];
+  /** a value sweep: the value swept, one per row (written beside the frequency) */
+  swept?: { label: string; unit: string; values: ArrayLike<number> };
 }
 
 /** The solver's sweep result as a table: every node voltage, then each part's voltage and current. */
@@ -98,6 +100,11 @@ export function sweepCsv(table: SweepTable): string {
   }
   const unit = table.amplitudes === 'peak' ? 'peak' : 'RMS';
   const head = ['f_Hz'];
+  const cleanUnit = (u: string) => u.replace(/[^\p{L}\p{N}.%/_-]+/gu, '') || '1';
+  if (table.swept) {
+    if (table.swept.values.length !== n) throw new Error(`the swept values have ${table.swept.values.length} points, the sweep has ${n}`);
+    head.push(`${table.swept.label} ${cleanUnit(table.swept.unit)}`);
+  }
   for (const t of table.traces) {
     const u = t.unit.replace(/[^\p{L}\p{N}.%/_-]+/gu, '') || '1';
     for (const part of ['re', 'im', 'mag', 'deg']) head.push(`${t.label} ${part} ${part === 'deg' ? 'deg' : u}`);
@@ -109,6 +116,7 @@ export function sweepCsv(table: SweepTable): string {
   ];
   for (let i = 0; i < n; i++) {
     const row = [csvNumber(table.frequenciesHz[i])];
+    if (table.swept) row.push(csvNumber(table.swept.values[i]));
     for (const t of table.traces) row.push(...phasor({ re: t.values[2 * i], im: t.values[2 * i + 1] }));
     lines.push(row.join(','));
   }

@@ -103,11 +103,13 @@ export function tableBlock(circuit: DerivedCircuit, result: SolveResult | null, 
   const all = resultRows(circuit.model, result);
   const tot = powerTotals(circuit.model, result);
   // an isolated section is measured from its own reference node, not from the ground
-  const ground = result.warnings.some((w) => /^isolated part/.test(w)) ? `${circuit.model.ground} (in each isolated section, to its own reference node: see the notes)` : circuit.model.ground;
+  const measured = result.warnings.some((w) => /^isolated part/.test(w))
+    ? `node voltages from each section's own reference node (${circuit.model.ground} where joined to it; an isolated section's reference: see the notes)`
+    : `node voltages to ${circuit.model.ground}`;
   const convention = result.amplitudes === 'rms' ? 'RMS' : 'peak';
   const lead = result.frequencyHz === 0
-    ? `DC values; node voltages to ${ground}; P = V·I absorbed by each part (negative: delivered).`
-    : `Magnitudes are ${convention} values (${result.amplitudes === 'rms' ? 'S = V·I*' : 'S = ½·V·I*'}), angles in degrees; node voltages to ${ground}; P and Q absorbed by each part (negative: delivered).`;
+    ? `DC values; ${measured}; P = V·I absorbed by each part (negative: delivered).`
+    : `Magnitudes are ${convention} values (${result.amplitudes === 'rms' ? 'S = V·I*' : 'S = ½·V·I*'}), angles in degrees; ${measured}; P and Q absorbed by each part (negative: delivered).`;
   const summary = `Sources deliver P = ${wattsText(tot.watts)}, Q = ${varsText(tot.vars)}; resistors dissipate ${wattsText(tot.dissipated)}.`;
   const couplingLines = couplingSummary(circuit);
 

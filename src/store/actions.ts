@@ -178,13 +178,45 @@ export function panBy(store: EditorStore, dx: number, dy: number): void {
   store.setState({ view: { ...v, x: v.x + dx, y: v.y + dy } });
 }
 
-/** Fit the sheet's contents into a viewport of the given size. */
-export function fitView(store: EditorStore, width: number, height: number): void {
-  const s = store.getState().sheet;
-  if (!s.parts.length) return store.setState({ view: { x: width / 2, y: height / 2, zoom: 1.5 } });
+/** The box the sheet's contents take in sheet units, with room for their designators and tags; null for an empty sheet. */
+export function contentBounds(s: Sheet): { x0: number; y0: number; x1: number; y1: number } | null {
+  if (!s.parts.length && !s.wires.length) return null;
   let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
   for (const p of s.parts) { x0 = Math.min(x0, p.x - 140); y0 = Math.min(y0, p.y - 60); x1 = Math.max(x1, p.x + 120); y1 = Math.max(y1, p.y + 50); }
   for (const w of s.wires) for (let i = 0; i < w.pts.length; i += 2) { x0 = Math.min(x0, w.pts[i] - 40); x1 = Math.max(x1, w.pts[i] + 40); y0 = Math.min(y0, w.pts[i + 1] - 30); y1 = Math.max(y1, w.pts[i + 1] + 30); }
+  return { x0, y0, x1, y1 };
+}
+
+/**
+ * Zoom by a key or button: about the middle of the view while some of the
+ * drawing stays in view that way; else about the part nearest the middle,
+ * held inside the view, so a zoom never pushes the circuit out of view.
+ */
+export function zoomView(store: EditorStore, factor: number, width: number, height: number): void {
+  const s = store.getState();
+  const zoom = Math.min(8, Math.max(0.1, s.view.zoom * factor));
+  const c = screenToWorld(s.view, width / 2, height / 2);
+  const middle: View = { zoom, x: width / 2 - c.x * zoom, y: height / 2 - c.y * zoom };
+  // part origins, or the wire points on a sheet of wires alone
+  const points: Point[] = s.sheet.parts.map((p) => ({ x: p.x, y: p.y }));
+  if (!points.length) for (const w of s.sheet.wires) for (let i = 0; i < w.pts.length; i += 2) points.push({ x: w.pts[i], y: w.pts[i + 1] });
+  const shown = (v: View, p: Point) => { const q = worldToScreen(v, p.x, p.y); return q.x >= 0 && q.x <= width && q.y >= 0 && q.y <= height; };
+  if (!points.length || points.some((p) => shown(middle, p))) return store.setState({ view: middle });
+  let anchor = points[0];
+  for (const p of points) if ((p.x - c.x) ** 2 + (p.y - c.y) ** 2 < (anchor.x - c.x) ** 2 + (anchor.y - c.y) ** 2) anchor = p;
+  // where the nearest point is on screen, brought inside the view with a margin; it stays there while zooming
+  const at = worldToScreen(s.view, anchor.x, anchor.y);
+  const mx = Math.min(40, width / 4), my = Math.min(40, height / 4);
+  const sx = Math.min(width - mx, Math.max(mx, at.x));
+  const sy = Math.min(height - my, Math.max(my, at.y));
+  store.setState({ view: { zoom, x: sx - anchor.x * zoom, y: sy - anchor.y * zoom } });
+}
+
+/** Fit the sheet's contents into a viewport of the given size. */
+export function fitView(store: EditorStore, width: number, height: number): void {
+  const b = contentBounds(store.getState().sheet);
+  if (!b) return store.setState({ view: { x: width / 2, y: height / 2, zoom: 1.5 } });
+  const { x0, y0, x1, y1 } = b;
   const zoom = Math.min(2, Math.max(0.1, Math.min(width / (x1 - x0 + 40), height / (y1 - y0 + 60))));
   store.setState({ view: { zoom, x: width / 2 - ((x0 + x1) / 2) * zoom, y: height / 2 - ((y0 + y1) / 2) * zoom } });
 }

@@ -3,18 +3,25 @@ import { createStore } from 'zustand/vanilla';
 import type { SweepAnswer, SweepQuantity } from '../worker/protocol';
 import type { SolveResult } from '../model/graph';
 import type { TRecord } from '../model/tEquivalentSheet';
+import type { ValueTarget } from '../model/valueTarget';
 
 export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain';
 
 export interface SweepTrace { label: string; quantity: SweepQuantity; unit: string }
 
+/** A value sweep: one part's value (or a coupling's k) from `from` to `to`, at the sheet's frequency. */
+export interface ValueSweep { target: ValueTarget; label: string; unit: string; from: number; to: number }
+
 export interface SweepSettings {
+  /** the frequency range (Hz) */
   from: number;
   to: number;
   points: number;
   log: boolean;
   db: boolean;
   traces: SweepTrace[];
+  /** sweep this value instead of the frequency */
+  over: ValueSweep | null;
 }
 
 /** A value the slider varies: a part's value or a link's k, between `min` and `max`. */
@@ -31,14 +38,18 @@ export interface AnalysisState {
     answer: SweepAnswer | null;
     /** the traces of `answer`, as they were when it was started */
     shown: SweepTrace[];
+    /** what `answer` swept when it was started: a value, or the frequency (null) */
+    shownOver?: ValueSweep | null;
     message: string;
     slider: { target: SliderTarget; value: number } | null;
+    /** settings kept from an earlier visit whose sweep had run: it runs again when the view shows */
+    autoRun?: boolean;
   };
   /** the winding whose dot the comparison flips */
   compareWinding: string | null;
 }
 
-export const DEFAULT_SWEEP: SweepSettings = { from: 10, to: 100e3, points: 400, log: true, db: true, traces: [] };
+export const DEFAULT_SWEEP: SweepSettings = { from: 10, to: 100e3, points: 400, log: true, db: true, traces: [], over: null };
 
 export function createAnalysisStore() {
   return createStore<AnalysisState>()(() => ({

@@ -85,14 +85,25 @@ export function readIndex(storage: KeyValueStorage, now = Date.now()): SheetEntr
   return repaired;
 }
 
-export function writeSheet(storage: KeyValueStorage, id: string, sheet: Sheet, now = Date.now(), rev?: string): SheetEntry[] {
+/** Writes a sheet, lists it first, and (unless `current` is false) marks it as the one to open next time. */
+export function writeSheet(storage: KeyValueStorage, id: string, sheet: Sheet, now = Date.now(), rev?: string, current = true): SheetEntry[] {
   storage.setItem(sheetKey(id), JSON.stringify(sheet));
   if (rev !== undefined) storage.setItem(revKey(id), rev);
   const index = readIndex(storage).filter((e) => e.id !== id);
   index.unshift({ id, title: sheet.title, updated: now });
   storage.setItem(KEY_INDEX, JSON.stringify(index));
-  storage.setItem(KEY_CURRENT, id);
+  if (current) storage.setItem(KEY_CURRENT, id);
   return index;
+}
+
+/** A title for a new sheet that no kept sheet has: "Sheet 1", "Sheet 2", … one above the highest in use. */
+export function nextSheetTitle(titles: string[]): string {
+  let high = 0;
+  for (const t of titles) {
+    const m = /^Sheet (\d{1,9})$/.exec(t.trim());
+    if (m) high = Math.max(high, Number(m[1]));
+  }
+  return `Sheet ${high + 1}`;
 }
 
 /** Marks the sheet to open on the next start (best effort: a full storage keeps the mark it had). */
@@ -144,4 +155,22 @@ export function restoreCurrent(storage: KeyValueStorage): { id: string; sheet: S
 
 export function freshSheetId(): string {
   return newId('sheet');
+}
+
+/**
+ * A bounded list of ids kept under `indexKey`, most recent first: `id` moves
+ * to the front, and the entries (`keyOf(id)`) of ids beyond `max` are removed.
+ * Throws what the storage throws (a full storage).
+ */
+export function touchBoundedList(storage: KeyValueStorage, indexKey: string, id: string, max: number, keyOf: (id: string) => string): void {
+  let ids: string[] = [];
+  try {
+    const parsed: unknown = JSON.parse(storage.getItem(indexKey) ?? '[]');
+    if (Array.isArray(parsed)) ids = parsed.filter((x): x is string => typeof x === 'string');
+  } catch {
+    /* a damaged list starts again */
+  }
+  ids = [id, ...ids.filter((x) => x !== id)];
+  for (const gone of ids.slice(max)) storage.removeItem(keyOf(gone));
+  storage.setItem(indexKey, JSON.stringify(ids.slice(0, max)));
 }

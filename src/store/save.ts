@@ -13,6 +13,11 @@ import type { EditorStore, StoredCopy } from './types';
 const TAB = Math.random().toString(36).slice(2, 10);
 let written = 0;
 
+/** A revision mark no other write has used (this tab's mark and a count). */
+export function nextRev(): string {
+  return `${TAB}.${++written}`;
+}
+
 /** Whether the sheet differs from the copy this tab knows to be stored. */
 export function unsaved(id: string, sheet: Sheet, stored: StoredCopy | null): boolean {
   return !(stored && stored.id === id && stored.sheet === sheet);
@@ -31,7 +36,7 @@ export function saveSheet(store: EditorStore, storage: KeyValueStorage, id = sto
     }
     return false;
   }
-  const rev = `${TAB}.${++written}`;
+  const rev = nextRev();
   try {
     const library = writeSheet(storage, id, sheet, Date.now(), rev);
     store.setState({ library, stored: { id, sheet, rev } });

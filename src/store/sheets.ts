@@ -3,6 +3,7 @@ import { newId } from '../model/ids';
 import type { Sheet } from '../model/sheet';
 import { loadStoredSheet, readRev, rememberCurrent, removeSheet, type KeyValueStorage } from './library';
 import { saveSheet, unsaved } from './save';
+import { forgetKeptSweep } from './sweepKeep';
 import type { EditorStore, StoredCopy } from './types';
 
 /** Shows `sheet` under `id`; `stored` when it was just read from storage (so it is not written back). */
@@ -37,4 +38,5 @@ export function switchSheet(store: EditorStore, storage: KeyValueStorage, id: st
 
 export function deleteStoredSheet(store: EditorStore, storage: KeyValueStorage, id: string): void {
   store.setState({ library: removeSheet(storage, id) });
+  forgetKeptSweep(storage, id);
 }

@@ -10,7 +10,10 @@
  * Web Locks still never saves over newer work.
  */
 import { newId } from '../model/ids';
-import { loadStoredSheet, readIndex, readRev, type KeyValueStorage } from './library';
+import { loadStoredSheet, readIndex, readRev, writeSheet, type KeyValueStorage } from './library';
+import { nextRev } from './save';
+import { commit } from './actions';
+import { titleProblem } from '../model/names';
 import { loadSheet } from './sheets';
 import type { EditorStore } from './types';
 
@@ -69,6 +72,11 @@ export interface TabGuard {
   takeOver(): Promise<void>;
   /** Keep what this tab shows as a sheet of its own, and edit that. */
   keepCopy(): void;
+  /**
+   * Renames a kept sheet: the open one as an edit (undoable), another one in
+   * storage, only while no tab has it open; a message saying why not, or null.
+   */
+  rename(id: string, title: string): Promise<string | null>;
   stop(): void;
 }
 
@@ -182,6 +190,33 @@ export function attachTabGuard(store: EditorStore, storage: KeyValueStorage, loc
       const title = `${s.sheet.title.slice(0, 190)} (copy)`;
       loadSheet(store, { ...s.sheet, title }, newId('sheet'));
       say(`Kept as a copy: “${title}” is a sheet of its own in this browser, edited here.`);
+    },
+    async rename(id, raw) {
+      const title = raw.trim();
+      if (!title) return 'A title cannot be empty';
+      const problem = titleProblem(title);
+      if (problem) return `The title ${problem}`;
+      const s = store.getState();
+      if (id === s.sheetId && !s.visit) {
+        if (s.tab.state === 'read-only') return 'This sheet is read-only in this tab (another tab edits it): rename it there';
+        commit(store, { ...s.sheet, title });
+        return null;
+      }
+      const lock = await locks.tryHold(lockName(id));
+      if (!lock) return 'That sheet is open in another tab: rename it there';
+      try {
+        const r = loadStoredSheet(storage, id);
+        if (!r) return 'That sheet is no longer kept in this browser';
+        if ('unreadable' in r) return `That sheet cannot be read (${r.unreadable.reason}), so it was not renamed`;
+        try {
+          store.setState({ library: writeSheet(storage, id, { ...r.sheet, title }, Date.now(), nextRev(), false) });
+        } catch (e) {
+          return `Could not rename it in the browser: ${e instanceof Error ? e.message : String(e)}`;
+        }
+        return null;
+      } finally {
+        lock.release();
+      }
     },
     stop() {
       stopped = true;

@@ -6,7 +6,7 @@ import { emptySheet } from '../model/sheet';
 import { formatSI } from '../model/quantity';
 import { fitView, notify } from '../store/actions';
 import { loadSheet, switchSheet, deleteStoredSheet } from '../store/sheets';
-import type { KeyValueStorage } from '../store/library';
+import { nextSheetTitle, type KeyValueStorage } from '../store/library';
 import type { SolveBridge } from '../store/solveBridge';
 import type { TabGuard } from '../store/tabGuard';
 import { findCommand, type CommandHost } from '../tools/commands';
@@ -66,8 +66,10 @@ export function App({ store, tools, storage, guard, solver, readGraph }: { store
     savePicture: () => void runOutput(store, 'svg'),
     output: (what) => void runOutput(store, what),
     newSheet: () => {
-      loadSheet(store, emptySheet());
-      notify(store, 'New empty sheet (the previous one is kept under Sheets)');
+      const s = store.getState();
+      const title = nextSheetTitle([s.sheet.title, ...s.library.map((e) => e.title)]);
+      loadSheet(store, emptySheet(title));
+      notify(store, `New empty sheet “${title}” (the previous one is kept under Sheets, where a sheet can be renamed)`);
     },
     copyReadings: () => {
       const s = store.getState();
@@ -158,6 +160,7 @@ export function App({ store, tools, storage, guard, solver, readGraph }: { store
             }}
             onSwitch={(id) => switchSheet(store, storage, id)}
             onForget={(id) => deleteStoredSheet(store, storage, id)}
+            onRename={guard ? (id, title) => guard.rename(id, title) : undefined}
           />
           <PartsShelf />
           <main className="stage" aria-label="Sheet">

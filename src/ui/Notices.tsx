@@ -43,6 +43,9 @@ export function noticesOf(s: Pick<EditorState, 'solve' | 'derived' | 'notice'>):
   if (solve.status === 'solved' && solve.result && solve.circuit) {
     for (const c of cautionsFor(solve.circuit.model, solve.result)) hazards.push(c);
   }
+  // the most specific first: an open secondary, then an open winding, then a hazardous voltage
+  const rank = { 'open-secondary': 0, 'open-winding': 1, elv: 2 } as Record<string, number>;
+  hazards.sort((a, b) => (rank[a.kind] ?? 3) - (rank[b.kind] ?? 3));
   for (const c of hazards) {
     out.push({
       tone: 'hazard', head: c.kind === 'elv' ? 'Hazardous voltage' : c.kind === 'open-secondary' ? 'Open current-transformer secondary' : 'Open winding',

@@ -26,7 +26,46 @@ import { useEditorState } from './editorContext';
 import type { SheetEntry } from '../store/types';
 import { SharePanel } from './share/SharePanel';
 
-export function TopBar({ onExample, onSwitch, onForget }: { onExample: (key: string) => void; onSwitch: (id: string) => void; onForget: (id: string) => void }) {
+/** A kept sheet in the list: open it, rename it (in place), forget it. */
+function KeptRow({ entry, current, onOpen, onForget, onRename }: { entry: SheetEntry; current: boolean; onOpen: () => void; onForget: () => void; onRename?: (title: string) => Promise<string | null> }) {
+  const [editing, setEditing] = useState(false);
+  const [text, setText] = useState(entry.title);
+  const [problem, setProblem] = useState<string | null>(null);
+  const done = async () => {
+    const why = await onRename?.(text);
+    if (why) return setProblem(why);
+    setProblem(null);
+    setEditing(false);
+  };
+  if (editing) {
+    return (
+      <div className="menu-row menu-rename">
+        <input
+          autoFocus aria-label={`New title for ${entry.title}`} data-testid="rename-input" value={text} aria-invalid={!!problem}
+          onChange={(e) => { setText(e.target.value); setProblem(null); }}
+          onKeyDown={(e) => {
+            e.stopPropagation();
+            if (e.key === 'Enter') void done();
+            if (e.key === 'Escape') { setEditing(false); setProblem(null); setText(entry.title); }
+          }}
+        />
+        <button className="menu-x" aria-label="Keep this title" title="Keep this title (Enter)" onClick={() => void done()}>✓</button>
+        {problem && <div className="field-error" role="alert">{problem}</div>}
+      </div>
+    );
+  }
+  return (
+    <div className="menu-row" data-testid="kept-sheet" data-id={entry.id}>
+      <button role="menuitem" className="menu-item" aria-current={current} onClick={onOpen}>
+        {current ? '● ' : ''}{entry.title || 'Untitled'} <small>{new Date(entry.updated).toLocaleString()}</small>
+      </button>
+      {onRename && <button className="menu-x" aria-label={`Rename ${entry.title}`} title="Rename this sheet" onClick={() => { setText(entry.title); setEditing(true); }}>✎</button>}
+      {!current && <button className="menu-x" aria-label={`Forget ${entry.title}`} title="Forget this sheet" onClick={onForget}>×</button>}
+    </div>
+  );
+}
+
+export function TopBar({ onExample, onSwitch, onForget, onRename }: { onExample: (key: string) => void; onSwitch: (id: string) => void; onForget: (id: string) => void; onRename?: (id: string, title: string) => Promise<string | null> }) {
   const { open, setOpen, ref } = usePopover();
   const title = useEditorState((s) => s.sheet.title);
   const library = useEditorState((s) => s.library);
@@ -58,12 +97,7 @@ export function TopBar({ onExample, onSwitch, onForget }: { onExample: (key: str
             <div className="menu-group" aria-label="Sheets kept in this browser">
               <div className="menu-head">Kept in this browser</div>
               {library.map((e: SheetEntry) => (
-                <div key={e.id} className="menu-row">
-                  <button role="menuitem" className="menu-item" aria-current={e.id === sheetId} onClick={() => { setOpen(false); onSwitch(e.id); }}>
-                    {e.id === sheetId ? '● ' : ''}{e.title || 'Untitled'} <small>{new Date(e.updated).toLocaleString()}</small>
-                  </button>
-                  {e.id !== sheetId && <button className="menu-x" aria-label={`Forget ${e.title}`} title="Forget this sheet" onClick={() => onForget(e.id)}>×</button>}
-                </div>
+                <KeptRow key={e.id} entry={e} current={e.id === sheetId} onOpen={() => { setOpen(false); onSwitch(e.id); }} onForget={() => onForget(e.id)} onRename={onRename && ((t) => onRename(e.id, t))} />
               ))}
             </div>
           </div>

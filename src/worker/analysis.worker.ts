@@ -35,7 +35,7 @@ async function sweep(req: Extract<AnalysisRequest, { kind: 'sweep' }>) {
     }
   }
   if (cancelled.delete(req.id)) return post({ id: req.id, type: 'cancelled' });
-  post({ id: req.id, type: 'done', value: { frequenciesHz: prepared.frequencies, traces: prepared.traces.map((t) => Array.from(t)), ms: performance.now() - t0 } });
+  post({ id: req.id, type: 'done', value: { frequenciesHz: prepared.frequencies, ...(prepared.values ? { values: prepared.values } : {}), traces: prepared.traces.map((t) => Array.from(t)), ms: performance.now() - t0 } });
 }
 
 self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {

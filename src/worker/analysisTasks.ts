@@ -6,6 +6,7 @@
 import type { ComplexJson, GraphModel, InductorEl, SolveResult, TwoTerminalResult } from '../model/graph';
 import { withNameTables } from '../model/names';
 import { portAgreement } from '../model/resultCompare';
+import { hasValueTarget, withValue } from '../model/valueTarget';
 import type { CompareAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer, TransferAnswer } from './protocol';
 import {
   compareDotFlip, connectionOf, createSession, frequencyGrid, pairState, parseGraphModel, powerSummary,
@@ -159,21 +160,53 @@ export function chunkRanges(total: number, chunk: number): [number, number][] {
 /** A sweep prepared once (sessions built, names checked), solved range by range. */
 export interface PreparedSweep {
   frequencies: number[];
+  /** a value sweep: the swept values */
+  values?: number[];
   traces: Float64Array[];
   run(start: number, end: number): void;
 }
 
+/** The sessions a set of quantities needs on one model: the circuit, and per source asked about, the circuit driven by it alone at 1∠0°. */
+function sweepSessions(model: GraphModel, sources: Map<string, 'voltage' | 'current'>) {
+  const session = createSession(model);
+  const zin = new Map<string, { session: SolverSession; drives: 'voltage' | 'current' }>();
+  for (const [id, drives] of sources) {
+    // the rest of the circuit with every other source zeroed, driven by this one at 1∠0°
+    const test: GraphModel = {
+      ...model,
+      elements: model.elements.map((e) =>
+        sourceRole(e) ? { ...e, magnitude: e.id === id ? 1 : 0, phaseDeg: 0 } : e),
+    };
+    zin.set(id, { session: createSession(test), drives });
+  }
+  return { session, zin };
+}
+
+export const VALUE_SWEEP_MAX_POINTS = 5000;
+
 export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
   const model = parseGraphModel(raw);
-  if (!(spec.points >= 2 && spec.points <= 100000)) throw new Error('points must be between 2 and 100000');
-  if (!(spec.from > 0 && spec.to > spec.from)) throw new Error('the range must run from a frequency above 0 Hz to a higher one');
-  const frequencies = frequencyGrid(spec.from, spec.to, Math.round(spec.points), spec.log);
-  const session = createSession(model);
+  const over = spec.over;
+  if (over) {
+    if (!(spec.points >= 2 && spec.points <= VALUE_SWEEP_MAX_POINTS)) throw new Error(`a value sweep takes between 2 and ${VALUE_SWEEP_MAX_POINTS} points`);
+    if (!hasValueTarget(model, over.target)) throw new Error(`${over.target.kind === 'coupling' ? 'coupling' : 'part'} "${over.target.id}" has no value to sweep on this sheet`);
+    if (!(Number.isFinite(spec.from) && Number.isFinite(spec.to) && spec.to > spec.from)) throw new Error('the values must run from a lower to a higher one');
+    if (spec.log && !(spec.from > 0)) throw new Error('log spacing needs values above 0');
+    if (!(over.frequencyHz >= 0 && Number.isFinite(over.frequencyHz))) throw new Error('the frequency of a value sweep must be 0 Hz or more');
+  } else {
+    if (!(spec.points >= 2 && spec.points <= 100000)) throw new Error('points must be between 2 and 100000');
+    if (!(spec.from > 0 && spec.to > spec.from)) throw new Error('the range must run from a frequency above 0 Hz to a higher one');
+  }
+  const n = Math.round(spec.points);
+  const xs = frequencyGrid(spec.from, spec.to, n, spec.log);
+  const frequencies = over ? new Array<number>(n).fill(over.frequencyHz) : xs;
+  const values = over ? xs : undefined;
   const nodes = new Set<string>();
   const elements = new Set<string>();
-  const zin = new Map<string, { session: SolverSession; drives: 'voltage' | 'current' }>();
+  const sources = new Map<string, 'voltage' | 'current'>();
   const ids = new Set(model.elements.map((e) => e.id));
-  const nodeNames = new Set(session.topo.nodeNames);
+  const base = sweepSessions(model, new Map());
+  const nodeNames = new Set(base.session.topo.nodeNames);
   const need = (q: SweepQuantity): void => {
     switch (q.kind) {
       case 'node':
@@ -188,15 +221,7 @@ export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
         const src = model.elements.find((e) => e.id === q.source);
         const drives = src && sourceRole(src);
         if (!drives) throw new Error(`"${q.source}" is not a source on this sheet`);
-        if (!zin.has(q.source)) {
-          // the rest of the circuit with every other source zeroed, driven by this one at 1∠0°
-          const test: GraphModel = {
-            ...model,
-            elements: model.elements.map((e) =>
-              sourceRole(e) ? { ...e, magnitude: e.id === q.source ? 1 : 0, phaseDeg: 0 } : e),
-          };
-          zin.set(q.source, { session: createSession(test), drives });
-        }
+        sources.set(q.source, drives);
         return;
       }
       case 'ratio':
@@ -206,11 +231,13 @@ export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
   };
   spec.quantities.forEach(need);
   const only = { nodes, elements };
-  const n = frequencies.length;
+  const fixed = over ? null : sweepSessions(model, sources);
   const traces = spec.quantities.map(() => new Float64Array(2 * n));
   const run = (start: number, end: number) => {
     for (let i = start; i < end; i++) {
       const f = frequencies[i];
+      // a value sweep builds the circuit anew at each value (the pattern is the same; the values are not)
+      const { session, zin } = fixed ?? sweepSessions(parseGraphModel(withValue(model, over!.target, values![i])), sources);
       const res = session.toResult(session.solveRaw(f), only);
       const zs = new Map<string, C>();
       for (const [id, z] of zin) {
@@ -237,7 +264,7 @@ export function prepareSweep(raw: GraphModel, spec: SweepSpec): PreparedSweep {
       });
     }
   };
-  return { frequencies, traces, run };
+  return { frequencies, values, traces, run };
 }
 
 /**

@@ -7,6 +7,7 @@
  */
 import type { ComplexJson, GraphModel, SolveResult, TransferResult } from '../model/graph';
 import type { Change, PairState, PowerSummary, TEquivalent } from '../solver';
+import type { ValueTarget } from '../model/valueTarget';
 
 /** What a sweep trace plots. */
 export type SweepQuantity =
@@ -27,6 +28,8 @@ export interface SweepSpec {
   chunk?: number;
   /** for tests: after the first chunk the sweep waits for a cancel, so it can never finish before one */
   hold?: boolean;
+  /** a value sweep: `from`…`to` are values of this target, solved at one frequency */
+  over?: { target: ValueTarget; frequencyHz: number };
 }
 
 export interface PortZ { z: ComplexJson | null }
@@ -75,7 +78,10 @@ export type TransferAnswer = TransferResult & {
 };
 
 export interface SweepAnswer {
+  /** the frequency of each point (all the same in a value sweep) */
   frequenciesHz: number[];
+  /** a value sweep: the value of each point */
+  values?: number[];
   /** one complex series per requested quantity (re and im interleaved: re0, im0, re1, im1 …) */
   traces: number[][];
   ms: number;

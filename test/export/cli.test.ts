@@ -76,7 +76,7 @@ describe('coilwright svg', () => {
     for (const el of model.elements) expect(names).toContain(el.id);
     expect(names).not.toContain(model.ground);
     // the floating secondary is measured from its own reference, and the sheet says so
-    expect(texts(r.stdout).join(' ')).toContain(`node voltages to ${model.ground} (in each isolated section, to its own reference node: see the notes);`);
+    expect(texts(r.stdout).join(' ')).toContain(`node voltages from each section's own reference node (${model.ground} where joined to it; an isolated section's reference: see the notes);`);
   });
 
   it('refuses a file that is not JSON: exit 1, one line, nothing on standard output', () => {

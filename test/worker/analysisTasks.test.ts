@@ -136,3 +136,36 @@ describe('coupling answers', () => {
     expect(p.tellegen.relative).toBeLessThan(1e-9); // Tellegen, 1952
   });
 });
+
+describe('value sweep', () => {
+  // a divider V·R2/(R1 + R2) with R2 swept (Ohm's law); k swept on a loaded pair matches a solve at each k
+  const divider = model(50, [
+    { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 10, phaseDeg: 0 },
+    { id: 'R1', kind: 'resistor', nodes: ['a', 'b'], ohms: 100 },
+    { id: 'R2', kind: 'resistor', nodes: ['b', 'gnd'], ohms: 100 },
+  ]);
+  it('solves the divider at each value of R2', () => {
+    const s = prepareSweep(divider, { from: 10, to: 1000, points: 5, log: true, quantities: [{ kind: 'node', node: 'b' }], over: { target: { kind: 'part', id: 'R2' }, frequencyHz: 50 } });
+    s.run(0, 5);
+    // log spacing: equal ratios, 10^0.5 per step from 10 to 1000 (arithmetic)
+    [10, 10 * 10 ** 0.5, 100, 100 * 10 ** 0.5, 1000].forEach((v, i) => expect(s.values![i] / v).toBeCloseTo(1, 12));
+    expect(s.frequencies).toEqual([50, 50, 50, 50, 50]);
+    s.values!.forEach((r2, i) => expect(s.traces[0][2 * i]).toBeCloseTo((10 * r2) / (100 + r2), 10));
+  });
+  it('sweeps k linearly from 0, each point as a solve of the model with that k', () => {
+    const s = prepareSweep(loaded(), { from: 0, to: 0.9, points: 4, log: false, quantities: [{ kind: 'current', element: 'R2' }], over: { target: { kind: 'coupling', id: 'K' }, frequencyHz: f } });
+    s.run(0, 4);
+    [0, 0.3, 0.6, 0.9].forEach((v, i) => expect(s.values![i]).toBeCloseTo(v, 14)); // equal steps (arithmetic)
+    s.values!.forEach((kv, i) => {
+      const m = loaded();
+      const r = solveGraph({ ...m, couplings: [{ id: 'K', windings: ['L1', 'L2'], k: kv }] });
+      const want = (r.elements.R2 as { current: { re: number; im: number } }).current;
+      expect(s.traces[0][2 * i]).toBeCloseTo(want.re, 12); // same model, same solver (consistency)
+      expect(s.traces[0][2 * i + 1]).toBeCloseTo(want.im, 12);
+    });
+    expect(Math.abs(s.traces[0][0]) + Math.abs(s.traces[0][1])).toBe(0); // k = 0: no coupling, no secondary current (field notes)
+  });
+  it('refuses a target that is not there, naming it', () => {
+    expect(() => prepareSweep(divider, { from: 1, to: 2, points: 3, log: false, quantities: [], over: { target: { kind: 'part', id: 'R9' }, frequencyHz: 50 } })).toThrow('"R9"');
+  });
+});

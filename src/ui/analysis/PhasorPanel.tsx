@@ -7,8 +7,10 @@ import type { ComplexJson, SolveResult } from '../../model/graph';
 import { formatAngle, formatSI } from '../../model/quantity';
 import { cabs, cdeg } from './format';
 import { niceCeil, waveform } from './plotMath';
-import { TRACE_COLOURS } from './SweepPanel';
+import { TRACE_COLOURS } from './sweepPlots';
 import { useSolved } from './useSolved';
+import { layoutPhasors } from './phasorLayout';
+import { textWidth, usePaneWidth } from './Plot';
 
 interface Pick { key: string; label: string; unit: 'V' | 'A'; z: ComplexJson }
 
@@ -29,6 +31,58 @@ function candidates(result: SolveResult): Pick[] {
 }
 
 const R = 130;
+/** room beside the circle for labels */
+const SIDE = 120;
+/** shortest arrow drawn: a shaft clearly longer than its head */
+const MIN_ARROW = 30;
+
+function PhasorDiagram({ picks, vMax, iMax }: { picks: Pick[]; vMax: number; iMax: number }) {
+  const labels = picks.map((p) => `${p.label} ∠${formatAngle(cdeg(p.z))}`);
+  const items = picks.map((p, i) => {
+    const s = (p.unit === 'V' ? vMax : iMax) || 1;
+    return { x: (p.z.re / s) * R, y: (-p.z.im / s) * R, label: labels[i], width: textWidth(labels[i]) };
+  });
+  const reLabel = { x0: R + 12, y0: -14, x1: R + 30, y1: -2 };
+  const imLabel = { x0: 4, y0: -R - 18, x1: 22, y1: -R - 6 };
+  const placed = layoutPhasors(items, { minLength: MIN_ARROW, axis: R + 10, bounds: { x0: -R - SIDE + 2, y0: -R - 22, x1: R + SIDE - 2, y1: R + 22 }, reserved: [reLabel, imLabel] });
+  return (
+    <svg width={2 * R + 2 * SIDE} height={2 * R + 48} viewBox={`${-R - SIDE} ${-R - 24} ${2 * R + 2 * SIDE} ${2 * R + 48}`} role="img" aria-label="Phasor diagram" data-testid="phasor-diagram">
+      <circle r={R} fill="none" stroke="#ddd" />
+      <circle r={R / 2} fill="none" stroke="#eee" />
+      <line x1={-R - 10} x2={R + 10} y1={0} y2={0} stroke="#ccc" data-axis="re" />
+      <line y1={-R - 10} y2={R + 10} x1={0} x2={0} stroke="#ccc" data-axis="im" />
+      <text x={reLabel.x0} y={reLabel.y1 - 2} fontSize={10} fill="#888">Re</text>
+      <text x={imLabel.x0} y={imLabel.y1 - 2} fontSize={10} fill="#888">Im</text>
+      <defs>
+        {picks.map((p, i) => (
+          <marker key={p.key} id={`ph-head-${i}`} viewBox="0 0 10 10" refX="9" refY="5" markerWidth="5" markerHeight="5" orient="auto-start-reverse">
+            <path d="M0,0 L10,5 L0,10 z" fill={TRACE_COLOURS[i % TRACE_COLOURS.length]} />
+          </marker>
+        ))}
+      </defs>
+      {picks.map((p, i) => {
+        const c = TRACE_COLOURS[i % TRACE_COLOURS.length];
+        const ang = cdeg(p.z);
+        const { tip, trueTip, lengthened, label, at } = placed[i];
+        // the angle, marked by an arc from the real axis (counter-clockwise positive)
+        const ar = 16 + 7 * i;
+        const a = (ang * Math.PI) / 180;
+        const arc = Math.abs(ang) < 0.5 || (tip.x === 0 && tip.y === 0) ? '' : `M${ar},0 A${ar},${ar} 0 0 ${ang > 0 ? 0 : 1} ${ar * Math.cos(a)},${-ar * Math.sin(a)}`;
+        const dash = p.unit === 'A' ? '5 3' : undefined;
+        return (
+          <g key={p.key} data-label={p.label} data-angle={ang} data-lengthened={lengthened || undefined}>
+            {arc && <path d={arc} fill="none" stroke={c} strokeWidth={1} opacity={0.7} />}
+            {lengthened ? <>
+              <line x1={0} y1={0} x2={trueTip.x} y2={trueTip.y} stroke={c} strokeWidth={2} />
+              <line x1={trueTip.x} y1={trueTip.y} x2={tip.x} y2={tip.y} stroke={c} strokeWidth={1.2} strokeDasharray="1.5 2.5" markerEnd={`url(#ph-head-${i})`} />
+            </> : (tip.x !== 0 || tip.y !== 0) && <line x1={0} y1={0} x2={tip.x} y2={tip.y} stroke={c} strokeWidth={2} strokeDasharray={dash} markerEnd={`url(#ph-head-${i})`} />}
+            {label && at && <text className="phasor-label" x={at.x} y={at.y} fontSize={10} fill={c} data-box={`${label.x0} ${label.y0} ${label.x1} ${label.y1}`}>{labels[i]}</text>}
+          </g>
+        );
+      })}
+    </svg>
+  );
+}
 
 export function PhasorPanel() {
   const solved = useSolved();
@@ -55,39 +109,7 @@ export function PhasorPanel() {
         <span className="muted">{amp === 'rms' ? 'RMS' : 'peak'} phasors at {formatSI(f, 'Hz', 4)}; angles from the positive real axis, counter-clockwise</span>
       </div>
       <div className="phasor-wrap">
-        <svg width={2 * R + 60} height={2 * R + 40} viewBox={`${-R - 30} ${-R - 20} ${2 * R + 60} ${2 * R + 40}`} role="img" aria-label="Phasor diagram" data-testid="phasor-diagram">
-          <circle r={R} fill="none" stroke="#ddd" />
-          <circle r={R / 2} fill="none" stroke="#eee" />
-          <line x1={-R - 10} x2={R + 10} y1={0} y2={0} stroke="#ccc" />
-          <line y1={-R - 10} y2={R + 10} x1={0} x2={0} stroke="#ccc" />
-          <text x={R + 4} y={-4} fontSize={10} fill="#888">Re</text>
-          <text x={4} y={-R - 6} fontSize={10} fill="#888">Im</text>
-          <defs>
-            {picks.map((p, i) => (
-              <marker key={p.key} id={`ph-head-${i}`} viewBox="0 0 10 10" refX="9" refY="5" markerWidth="7" markerHeight="7" orient="auto-start-reverse">
-                <path d="M0,0 L10,5 L0,10 z" fill={TRACE_COLOURS[i % TRACE_COLOURS.length]} />
-              </marker>
-            ))}
-          </defs>
-          {picks.map((p, i) => {
-            const s = (p.unit === 'V' ? vMax : iMax) || 1;
-            const x = (p.z.re / s) * R;
-            const y = (-p.z.im / s) * R;
-            const c = TRACE_COLOURS[i % TRACE_COLOURS.length];
-            const ang = cdeg(p.z);
-            // the angle, marked by an arc from the real axis (counter-clockwise positive)
-            const ar = 16 + 7 * i;
-            const a = (ang * Math.PI) / 180;
-            const arc = Math.abs(ang) < 0.5 ? '' : `M${ar},0 A${ar},${ar} 0 0 ${ang > 0 ? 0 : 1} ${ar * Math.cos(a)},${-ar * Math.sin(a)}`;
-            return (
-              <g key={p.key} data-label={p.label} data-angle={ang}>
-                {arc && <path d={arc} fill="none" stroke={c} strokeWidth={1} opacity={0.7} />}
-                <line x1={0} y1={0} x2={x} y2={y} stroke={c} strokeWidth={2} strokeDasharray={p.unit === 'A' ? '5 3' : undefined} markerEnd={`url(#ph-head-${i})`} />
-                <text x={x * 1.06} y={y * 1.06} fontSize={10} fill={c} textAnchor={x < 0 ? 'end' : 'start'}>{p.label} ∠{formatAngle(ang)}</text>
-              </g>
-            );
-          })}
-        </svg>
+        <PhasorDiagram picks={picks} vMax={vMax} iMax={iMax} />
         <div>
           <p><strong>Scales</strong> (outer ring): voltages {formatSI(vMax, 'V', 3)} (solid), currents {formatSI(iMax, 'A', 3)} (dashed)</p>
           <ul className="trace-list" aria-label="Legend" data-testid="phasor-legend">
@@ -95,6 +117,7 @@ export function PhasorPanel() {
               <li key={p.key}>
                 <span className="swatch" style={{ background: TRACE_COLOURS[i % TRACE_COLOURS.length] }} />
                 {p.label} = {formatSI(cabs(p.z), p.unit, 4)} ∠{formatAngle(cdeg(p.z))}
+                {cabs(p.z) > 0 && cabs(p.z) / ((p.unit === 'V' ? vMax : iMax) || 1) * R < MIN_ARROW && <span className="muted"> (short: drawn longer, the added part dotted)</span>}
                 <button type="button" className="cmd" aria-label={`Remove ${p.label}`} title="Remove from the diagram" onClick={() => toggle(p.key)}>×</button>
               </li>
             ))}
@@ -107,21 +130,29 @@ export function PhasorPanel() {
 }
 
 function Waves({ picks, f, amplitudes, vMax, iMax }: { picks: Pick[]; f: number; amplitudes: 'rms' | 'peak'; vMax: number; iMax: number }) {
-  const W = 760, H = 180, m = { l: 60, r: 60, t: 10, b: 26 };
+  const [pane, W] = usePaneWidth();
+  const H = 180;
   const k = amplitudes === 'rms' ? Math.SQRT2 : 1;
   const T = f > 0 ? 2 / f : 1;
+  const m = { l: 60, r: 60, t: 10, b: 26 };
   const x = scaleLinear().domain([0, T]).range([m.l, W - m.r]);
   const yV = scaleLinear().domain([-(vMax || 1) * k, (vMax || 1) * k]).range([H - m.b, m.t]);
   const yI = scaleLinear().domain([-(iMax || 1) * k, (iMax || 1) * k]).range([H - m.b, m.t]);
+  const vt = yV.ticks(4).map((t) => ({ t, s: formatSI(t, 'V', 3) }));
+  const it = yI.ticks(4).map((t) => ({ t, s: formatSI(t, 'A', 3) }));
+  // margins from the labels drawn in them
+  m.l = Math.ceil(Math.max(...vt.map((v) => textWidth(v.s))) + 8);
+  m.r = Math.ceil(Math.max(...it.map((v) => textWidth(v.s))) + 8);
+  x.range([m.l, W - m.r]);
   return (
-    <div className="plot" data-testid="waveforms">
+    <div className="plot" data-testid="waveforms" ref={pane}>
       <p className="muted">Instantaneous values over two periods: x(t) = {amplitudes === 'rms' ? '√2·|X|' : '|X|'}·cos(ωt + φ) ({amplitudes === 'rms' ? 'RMS' : 'peak'} phasors). Voltages on the left scale, currents on the right.</p>
-      <svg width={W} height={H} role="img" aria-label="Waveforms over two periods">
+      <svg width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" aria-label="Waveforms over two periods">
         <line x1={m.l} x2={W - m.r} y1={yV(0)} y2={yV(0)} stroke="#ccc" />
         <g className="axis">
-          {yV.ticks(4).map((t) => <text key={`v${t}`} x={m.l - 4} y={yV(t) + 3} textAnchor="end" fontSize={10}>{formatSI(t, 'V', 3)}</text>)}
-          {yI.ticks(4).map((t) => <text key={`i${t}`} x={W - m.r + 4} y={yI(t) + 3} fontSize={10}>{formatSI(t, 'A', 3)}</text>)}
-          {x.ticks(4).map((t) => <text key={`t${t}`} x={x(t)} y={H - 8} textAnchor="middle" fontSize={10}>{formatSI(t, 's', 3)}</text>)}
+          {vt.map(({ t, s }) => <text key={`v${t}`} x={m.l - 4} y={yV(t) + 3} textAnchor="end" fontSize={10}>{s}</text>)}
+          {it.map(({ t, s }) => <text key={`i${t}`} x={W - m.r + 4} y={yI(t) + 3} fontSize={10}>{s}</text>)}
+          {x.ticks(4).map((t) => <text key={`t${t}`} x={x(t)} y={H - 8} textAnchor={t === 0 ? 'start' : x(t) > W - m.r - 20 ? 'end' : 'middle'} fontSize={10}>{formatSI(t, 's', 3)}</text>)}
         </g>
         {picks.map((p, i) => {
           const w = waveform(p.z.re, p.z.im, f, amplitudes, 240);

@@ -21,9 +21,10 @@ export function logTicks(lo: number, hi: number): number[] {
   return out;
 }
 
-/** "1 kHz", "20 kHz", "2.5 MHz": a tick label with an SI prefix. */
-export function engLabel(v: number, unit: string): string {
-  return formatSI(v, unit, 3);
+/** "1 kHz", "20 kHz", "2.5 MHz": a tick label with an SI prefix; a pure number (unit "1", a coupling's k) as it is, "0.25". */
+export function engLabel(v: number, unit: string, digits = 3): string {
+  if (unit === '1') return String(Number(v.toPrecision(digits)));
+  return formatSI(v, unit, digits);
 }
 
 /** 20·log10(|x|) (amplitude ratio in decibels, common practice); −Infinity at 0. */
@@ -31,7 +32,72 @@ export function toDb(mag: number): number {
   return 20 * Math.log10(mag);
 }
 
-export interface Marker { index: number; frequency: number; value: number; kind: 'peak' | 'phase-zero' }
+export interface Marker { index: number; frequency: number; value: number; kind: 'peak' | 'phase-zero' | 'half-power' }
+
+/**
+ * The decibel scale of a quantity: the reference it is measured against and
+ * whether it is a power (10·log10) or an amplitude (20·log10) quantity
+ * (common practice: dBV re 1 V, dBA re 1 A, dBΩ re 1 Ω, dBS re 1 S; a ratio
+ * of like quantities in plain dB).
+ */
+export interface DbScale { unit: string; factor: 10 | 20 }
+
+export function dbScale(unit: string, power = false): DbScale {
+  if (power) return { unit: unit === '' ? 'dB' : unit === 'VA' ? 'dB(VA)' : `dB(${unit})`, factor: 10 };
+  switch (unit) {
+    case '': return { unit: 'dB', factor: 20 };
+    case 'V': return { unit: 'dBV', factor: 20 };
+    case 'A': return { unit: 'dBA', factor: 20 };
+    case 'Ω': case 'V/A': return { unit: 'dBΩ', factor: 20 };
+    case 'S': case 'A/V': return { unit: 'dBS', factor: 20 };
+    default: return { unit: `dB(${unit})`, factor: 20 };
+  }
+}
+
+/** A magnitude in decibels on a scale; −Infinity at 0. */
+export function dbOf(mag: number, scale: DbScale): number {
+  return scale.factor * Math.log10(mag);
+}
+
+/**
+ * The half-power points of a magnitude curve (−3 dB: where an amplitude
+ * falls to 1/√2 of its peak, a power to 1/2; common practice): for each peak
+ * given, the nearest crossing on each side, by linear interpolation in
+ * log-x (for log grids) on the magnitude. With no peak given, the curve's
+ * largest value serves as the reference (a low-pass or high-pass shape).
+ * Returns the crossings found, each with the peak it belongs to.
+ */
+export function halfPowerPoints(f: ArrayLike<number>, mag: ArrayLike<number>, peaks: Marker[], logF = true, power = false): { peak: Marker; below: Marker | null; above: Marker | null }[] {
+  const n = mag.length;
+  if (n < 2) return [];
+  const refs: Marker[] = peaks.length ? peaks : [];
+  if (!refs.length) {
+    let best = -1;
+    for (let i = 0; i < n; i++) if (Number.isFinite(mag[i]) && (best < 0 || mag[i] > mag[best])) best = i;
+    if (best < 0 || !(mag[best] > 0)) return [];
+    refs.push({ index: best, frequency: f[best], value: mag[best], kind: 'peak' });
+  }
+  const x = (k: number) => (logF ? Math.log(f[k]) : f[k]);
+  const at = (i: number, j: number, level: number): Marker => {
+    const t = (level - mag[i]) / (mag[j] - mag[i]);
+    const xv = x(i) + (Number.isFinite(t) ? t : 0) * (x(j) - x(i));
+    return { index: i, frequency: logF ? Math.exp(xv) : xv, value: level, kind: 'half-power' };
+  };
+  return refs.map((peak) => {
+    const level = peak.value * (power ? 0.5 : Math.SQRT1_2);
+    let below: Marker | null = null;
+    for (let i = Math.min(peak.index, n - 1); i > 0; i--) {
+      if (mag[i - 1] > peak.value) break;
+      if (mag[i - 1] <= level && mag[i] > level) { below = at(i, i - 1, level); break; }
+    }
+    let above: Marker | null = null;
+    for (let i = Math.max(peak.index, 0); i < n - 1; i++) {
+      if (mag[i + 1] > peak.value) break;
+      if (mag[i + 1] <= level && mag[i] > level) { above = at(i, i + 1, level); break; }
+    }
+    return { peak, below, above };
+  });
+}
 
 /**
  * Local maxima of `y` that stand above their surroundings by at least
@@ -72,6 +138,8 @@ export function phaseZeros(f: ArrayLike<number>, deg: ArrayLike<number>, logF = 
     const a = deg[i];
     const b = deg[i + 1];
     if (Math.abs(a) > 90 || Math.abs(b) > 90) continue;
+    // a phase that stays within rounding of 0° (a resistive load throughout) crosses nothing
+    if (Math.max(Math.abs(a), Math.abs(b)) < 0.05) continue;
     if (a === 0 && i > 0) continue;
     if (!(a === 0 || (a < 0) !== (b < 0)) || b === 0) continue;
     const t = a === b ? 0 : a / (a - b);

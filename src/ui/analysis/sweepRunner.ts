@@ -5,6 +5,7 @@ import type { SweepQuantity } from '../../worker/protocol';
 import { CancelledError } from '../../store/analysisBridge';
 import { analysisStore, type SliderTarget, type SweepTrace } from '../../store/analysisStore';
 import { analysisClient } from './client';
+import { withValue } from '../../model/valueTarget';
 
 let running: { cancel: () => void } | null = null;
 
@@ -16,13 +17,7 @@ const setSweep = (patch: Partial<ReturnType<typeof analysisStore.getState>['swee
 
 /** The model with the slider's value put in. */
 export function withSlider(model: GraphModel, target: SliderTarget, value: number): GraphModel {
-  if (target.kind === 'coupling') {
-    return { ...model, couplings: (model.couplings ?? []).map((c) => (c.id === target.id ? { id: c.id, windings: c.windings, k: value } : c)) };
-  }
-  return {
-    ...model,
-    elements: model.elements.map((e) => (e.id === target.id ? withSweptValue(e, value) : e)),
-  };
+  return withValue(model, target, value);
 }
 
 export function runSweep(model: GraphModel): void {
@@ -32,7 +27,9 @@ export function runSweep(model: GraphModel): void {
   const m = slider ? withSlider(model, slider.target, slider.value) : model;
   const quantities: SweepQuantity[] = settings.traces.map((t) => t.quantity);
   setSweep({ status: 'running', progress: 0, message: '' });
-  const job = analysisClient().sweep(m, { from: settings.from, to: settings.to, points: settings.points, log: settings.log, quantities, chunk: 50, hold: sweepTestHold.on }, (done, total) => {
+  const over = settings.over;
+  const range = over ? { from: over.from, to: over.to, over: { target: over.target, frequencyHz: model.frequencyHz } } : { from: settings.from, to: settings.to };
+  const job = analysisClient().sweep(m, { ...range, points: settings.points, log: settings.log, quantities, chunk: over ? 10 : 50, hold: sweepTestHold.on }, (done, total) => {
     if (running === job) setSweep({ progress: done / total });
   });
   running = job;
@@ -41,11 +38,14 @@ export function runSweep(model: GraphModel): void {
     (answer) => {
       if (running !== job) return;
       running = null;
-      setSweep({ status: 'done', progress: 1, answer, shown, message: '' });
+      // another sheet opened meanwhile (its settings replaced these): the answer is not its
+      if (analysisStore.getState().sweep.status !== 'running') return;
+      setSweep({ status: 'done', progress: 1, answer, shown, shownOver: over, message: '' });
     },
     (e: Error) => {
       if (running !== job) return;
       running = null;
+      if (analysisStore.getState().sweep.status !== 'running') return;
       if (e instanceof CancelledError) setSweep({ status: 'cancelled', message: 'Sweep cancelled; the last complete plot stays' });
       else setSweep({ status: 'failed', message: e.message });
     },

@@ -65,5 +65,6 @@ export function sweepFromAnalysisStore(): SweepTable | null {
   return {
     frequenciesHz: answer.frequenciesHz,
     traces: sw.shown.map((t, i) => ({ label: t.label, unit: t.unit, values: answer.traces[i] })),
+    ...(answer.values && sw.shownOver ? { swept: { label: sw.shownOver.label, unit: sw.shownOver.unit, values: answer.values } } : {}),
   };
 }
