@@ -9,10 +9,10 @@ import { nameTable } from '../../model/names';
 import { ModelRefusal } from '../errors';
 import { buildTopology, type Topology } from '../core/topology';
 import { checkSolvable } from '../core/checks';
-import { collectMutuals, reciprocalInductances } from '../core/windings';
+import { collectMutuals } from '../core/windings';
 import { buildDescriptor, rightHandSide, type Descriptor } from '../core/descriptor';
 import { defOf } from '../elements/registry';
-import { analyze, ComplexSparseLU, type LuSymbolic } from '../lu-backend';
+import { analyze, ComplexSparseLU, type LuOptions, type LuSymbolic } from '../lu-backend';
 import { SingularMatrixError, type CscPattern } from '../sparse/types';
 
 /**
@@ -21,6 +21,12 @@ import { SingularMatrixError, type CscPattern } from '../sparse/types';
  * needs (an inductance is a short there).
  */
 export type MnaForm = 'ac' | 'dc';
+
+/**
+ * Rows and columns equilibrated before pivoting and before the singular test (sparse/scaling.ts), so that
+ * a spread of impedances across many decades is judged by scaled pivots, not absolute ones.
+ */
+const LU_OPTIONS: LuOptions = { scale: 'rows-cols' };
 
 /** Raw solution at one frequency: node voltages and branch currents as typed arrays. */
 export interface RawSolution {
@@ -67,7 +73,10 @@ export class SolverSession {
     this.topo = buildTopology(model);
     const mutuals = collectMutuals(model);
     this.form = form;
-    this.mna = buildDescriptor(model, this.topo, mutuals, { reduced: form === 'ac' ? reciprocalInductances(model, mutuals) : undefined });
+    // every winding keeps its branch current at every frequency: rebuilding it from node voltages through
+    // 1/(jωL) (the reciprocal form, core/windings.ts) cancels digits when ωL is small beside its surroundings
+    // (error ~ 1e-16·|Z around|/|ωL|), while the branch row V − jωL·I = 0 yields I exactly
+    this.mna = buildDescriptor(model, this.topo, mutuals, {});
     const n = this.mna.n;
     const srcRe = new Float64Array(model.elements.length);
     const srcIm = new Float64Array(model.elements.length);
@@ -94,7 +103,7 @@ export class SolverSession {
       previous.im = new Float64Array(0);
     } else {
       this.symbolic = analyze(this.mna.pattern);
-      this.lu = new ComplexSparseLU(this.symbolic);
+      this.lu = new ComplexSparseLU(this.symbolic, LU_OPTIONS);
       this.re = new Float64Array(this.mna.pattern.rowIdx.length);
       this.im = new Float64Array(this.mna.pattern.rowIdx.length);
     }
@@ -125,7 +134,7 @@ export class SolverSession {
     }
     if (!this.lu) {
       // taken over by a later session: this one gets buffers of its own again
-      this.lu = new ComplexSparseLU(this.symbolic);
+      this.lu = new ComplexSparseLU(this.symbolic, LU_OPTIONS);
       this.re = new Float64Array(this.mna.pattern.rowIdx.length);
       this.im = new Float64Array(this.mna.pattern.rowIdx.length);
     }

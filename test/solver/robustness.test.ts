@@ -1,0 +1,90 @@
+import { describe, it, expect } from 'vitest';
+import { solveGraph } from '../../src/solver';
+import type { GraphModel } from '../../src/model/graph';
+import { model, two } from '../helpers';
+import { preciseSolve } from '../reference/precise-mna';
+
+/** |a − b| within 1e-6 of |b| or 1e-9 of `scale` (the largest quantity of its kind). */
+function near(a: { re: number; im: number }, b: { re: number; im: number }, scale: number) {
+  const d = Math.hypot(a.re - b.re, a.im - b.im);
+  expect(d).toBeLessThanOrEqual(Math.max(1e-6 * Math.hypot(b.re, b.im), 1e-9 * scale));
+}
+
+/** Every element's port currents and voltages against the 80-digit reference (test/reference/precise-mna.ts). */
+function againstReference(m: GraphModel) {
+  const r = solveGraph(m);
+  const ref = preciseSolve(m);
+  let iMax = 0;
+  let vMax = 0;
+  for (const e of ref.elements.values()) {
+    for (const i of e.currents) iMax = Math.max(iMax, Math.hypot(i.re, i.im));
+    for (const v of e.voltages) vMax = Math.max(vMax, Math.hypot(v.re, v.im));
+  }
+  for (const [id, e] of ref.elements) {
+    const got = r.elements[id] as { current?: { re: number; im: number }; voltage?: { re: number; im: number }; currents?: { re: number; im: number }[]; voltages?: { re: number; im: number }[] };
+    const cur = got.currents ?? [got.current!];
+    const vol = got.voltages ?? [got.voltage!];
+    e.currents.forEach((c, t) => near(cur[t], c, iMax));
+    e.voltages.forEach((v, t) => near(vol[t], v, vMax));
+  }
+  return r;
+}
+
+describe('small reactances keep their digits', () => {
+  it('1 µH in series with 1 µF at 0.01 Hz: I(L1) = jωC·V to full precision', () => {
+    // series LC far below resonance: I = V/(jωL + 1/(jωC)) ≈ jωC·V = 6.2832e-8j A (closed form)
+    const m = model(0.01, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'L1', kind: 'inductor', nodes: ['a', 'b'], henries: 1e-6 },
+      { id: 'C1', kind: 'capacitor', nodes: ['b', 'gnd'], farads: 1e-6 },
+    ]);
+    const r = againstReference(m);
+    const w = 2 * Math.PI * 0.01;
+    const exact = 1 / (1 / (w * 1e-6) - w * 1e-6); // |I| = 1/(1/(ωC) − ωL), leading
+    expect(two(r, 'L1').current.im).toBeCloseTo(exact, 15);
+    // KCL at b: the inductor's current is the capacitor's (Kirchhoff)
+    const iL = two(r, 'L1').current;
+    const iC = two(r, 'C1').current;
+    expect(Math.abs(iL.im - iC.im)).toBeLessThanOrEqual(1e-9 * Math.abs(iC.im));
+  });
+
+  it('a winding loaded by 1 GΩ carries its tiny current to full precision', () => {
+    // reference: 80-digit branch-form MNA (test/reference/precise-mna.ts)
+    const m = model(50, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'L1', kind: 'inductor', nodes: ['a', 'gnd'], henries: 0.1, dot: 'first' },
+      { id: 'L2', kind: 'inductor', nodes: ['s', 'gnd'], henries: 0.1, dot: 'first' },
+      { id: 'R1', kind: 'resistor', nodes: ['s', 'gnd'], ohms: 1e9 },
+    ], [{ id: 'K1', windings: ['L1', 'L2'], k: 0.5 }]);
+    againstReference(m);
+  });
+
+  it('a series-coupled resonator of Q = 10,000 agrees with the reference from 0.01 Hz to 1 GHz', () => {
+    // reference: 80-digit branch-form MNA (test/reference/precise-mna.ts)
+    for (let e = -2; e <= 9; e++) {
+      const m = model(10 ** e, [
+        { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+        { id: 'L1', kind: 'inductor', nodes: ['a', 'b'], henries: 1e-3, dot: 'first' },
+        { id: 'L2', kind: 'inductor', nodes: ['b', 'c'], henries: 1e-3, dot: 'first' },
+        { id: 'C1', kind: 'capacitor', nodes: ['c', 'd'], farads: 1e-9 },
+        { id: 'R1', kind: 'resistor', nodes: ['d', 'gnd'], ohms: Math.sqrt(2e-3 * 1.5 / 1e-9) / 1e4 },
+      ], [{ id: 'K1', windings: ['L1', 'L2'], k: 0.5 }]);
+      againstReference(m);
+    }
+  });
+});
+
+describe('wide impedance spreads', () => {
+  it('a 1e150 F capacitor at 1 MHz is a short: V = I/(jωC), I = V/R', () => {
+    // ωC = 2π·1e6·1e150 ≈ 6.28e156 S (capacitor admittance, common practice); the RC divider's closed form
+    const m = model(1e6, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'b'], ohms: 10 },
+      { id: 'C1', kind: 'capacitor', nodes: ['b', 'gnd'], farads: 1e150 },
+    ]);
+    const r = solveGraph(m);
+    expect(two(r, 'R1').current.re).toBeCloseTo(0.1, 15);
+    const wC = 2 * Math.PI * 1e6 * 1e150;
+    expect(r.nodes.b.im / (-0.1 / wC)).toBeCloseTo(1, 9);
+  });
+});
