@@ -87,4 +87,59 @@ describe('wide impedance spreads', () => {
     const wC = 2 * Math.PI * 1e6 * 1e150;
     expect(r.nodes.b.im / (-0.1 / wC)).toBeCloseTo(1, 9);
   });
+
+  it('1 V into 1 GΩ, 1 µΩ, 1 GΩ in series solves, every node to the reference', () => {
+    // reference: 80-digit branch-form MNA (test/reference/precise-mna.ts); series divider (Ohm's law)
+    for (const mid of [1e-6, 1e-3]) {
+      const m = model(50, [
+        { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+        { id: 'R1', kind: 'resistor', nodes: ['a', 'b'], ohms: 1e9 },
+        { id: 'R2', kind: 'resistor', nodes: ['b', 'c'], ohms: mid },
+        { id: 'R3', kind: 'resistor', nodes: ['c', 'gnd'], ohms: 1e9 },
+      ]);
+      const r = againstReference(m);
+      expect(two(r, 'R2').voltage.re / (mid / (2e9 + mid))).toBeCloseTo(1, 6);
+    }
+  });
+
+  it('1 nH between 1 GΩ and 330 MΩ at 50 Hz solves', () => {
+    // reference: 80-digit branch-form MNA (test/reference/precise-mna.ts)
+    const m = model(50, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'b'], ohms: 1e9 },
+      { id: 'L1', kind: 'inductor', nodes: ['b', 'c'], henries: 1e-9 },
+      { id: 'R2', kind: 'resistor', nodes: ['c', 'gnd'], ohms: 330e6 },
+    ]);
+    const r = againstReference(m);
+    const w = 2 * Math.PI * 50;
+    // V(L1) = jωL·I with I = 1/(1.33e9 + jωL) (series circuit)
+    expect(two(r, 'L1').voltage.im / ((w * 1e-9) / 1.33e9)).toBeCloseTo(1, 6);
+  });
+
+  it('a 1 kA current transformer with a 1 µΩ bus bar, 1 GΩ insulation, 1 nH stray and k = 0.99999 solves', () => {
+    // invented demo values; reference: 80-digit branch-form MNA (test/reference/precise-mna.ts)
+    const m = model(50, [
+      { id: 'I1', kind: 'current-source', nodes: ['gnd', 'a'], magnitude: 1000, phaseDeg: 0 },
+      { id: 'Rbus', kind: 'resistor', nodes: ['a', 'gnd'], ohms: 1e-6 },
+      { id: 'Lp', kind: 'inductor', nodes: ['a', 'p'], henries: 1e-6, dot: 'first' },
+      { id: 'Lst', kind: 'inductor', nodes: ['p', 'gnd'], henries: 1e-9 },
+      { id: 'Ls', kind: 'inductor', nodes: ['s', 't'], henries: 1e-2, dot: 'first' },
+      { id: 'Rb', kind: 'resistor', nodes: ['s', 't'], ohms: 1 },
+      { id: 'Riso', kind: 'resistor', nodes: ['t', 'gnd'], ohms: 1e9 },
+    ], [{ id: 'K1', windings: ['Lp', 'Ls'], k: 0.99999 }]);
+    againstReference(m);
+  });
+
+  it('warns, naming a node, when the spread costs more than six digits', () => {
+    // 1 F at 50 Hz (314 S) between two 1 GΩ resistors: condition number ~ 314/1e-9 ≈ 3e11 > 1e10 (ratio of
+    // admittances, common practice); the 1 kΩ divider alone is well conditioned and gives no warning
+    const m = (farads: number) => model(50, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'b'], ohms: 1e9 },
+      { id: 'C2', kind: 'capacitor', nodes: ['b', 'c'], farads },
+      { id: 'R3', kind: 'resistor', nodes: ['c', 'gnd'], ohms: 1e9 },
+    ]);
+    expect(solveGraph(m(1)).warnings.join('\n')).toMatch(/node "[bc]": .*may have lost more than six digits/);
+    expect(solveGraph(m(1e-9)).warnings).toEqual([]);
+  });
 });
