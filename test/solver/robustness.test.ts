@@ -143,3 +143,47 @@ describe('wide impedance spreads', () => {
     expect(solveGraph(m(1e-9)).warnings).toEqual([]);
   });
 });
+
+describe('parts with both terminals on one node', () => {
+  it('a shorted turn: the primary sees Rs + jωL1(1 − k²)', () => {
+    // shorted secondary of coupled windings: Z_in = jωL1(1 − k²) (field notes; standard result, from memory);
+    // reference: 80-digit branch-form MNA (test/reference/precise-mna.ts)
+    const f = 50;
+    const w = 2 * Math.PI * f;
+    const m = model(f, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'Rs', kind: 'resistor', nodes: ['a', 'b'], ohms: 2 },
+      { id: 'L1', kind: 'inductor', nodes: ['b', 'gnd'], henries: 0.01, dot: 'first' },
+      { id: 'L2', kind: 'inductor', nodes: ['s', 's'], henries: 0.04, dot: 'first' },
+    ], [{ id: 'K1', windings: ['L1', 'L2'], k: 0.8 }]);
+    const r = againstReference(m);
+    const i = two(r, 'Rs').current;
+    const zr = 2;
+    const zi = w * 0.01 * (1 - 0.64);
+    const d = zr * zr + zi * zi;
+    expect(i.re).toBeCloseTo(zr / d, 12);
+    expect(i.im).toBeCloseTo(-zi / d, 12);
+  });
+
+  it('an ideal transformer with a shorted secondary driven by a current source', () => {
+    // reference: 80-digit branch-form MNA (test/reference/precise-mna.ts); V_p = n·V_s = 0 (ideal transformer)
+    const m = model(50, [
+      { id: 'I1', kind: 'current-source', nodes: ['gnd', 'a'], magnitude: 1, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'gnd'], ohms: 10 },
+      { id: 'T1', kind: 'ideal-transformer', nodes: ['a', 'gnd', 's', 's'], ratio: 2 },
+    ]);
+    const r = againstReference(m);
+    expect(Math.abs(r.nodes.a.re)).toBeLessThan(1e-12);
+  });
+
+  it('a current source whose two ends meet', () => {
+    // its current circulates in itself: the rest of the circuit sees nothing (KCL); reference as above
+    const m = model(50, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'gnd'], ohms: 10 },
+      { id: 'I1', kind: 'current-source', nodes: ['a', 'a'], magnitude: 1, phaseDeg: 0 },
+    ]);
+    const r = againstReference(m);
+    expect(two(r, 'R1').current.re).toBeCloseTo(0.1, 15);
+  });
+});
