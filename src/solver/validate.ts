@@ -114,12 +114,13 @@ export function parseGraphModel(input: unknown): GraphModel {
     }
     const el = parsed.data as GraphElement;
     const nodes = el.nodes;
-    if (nodes.length === 2 && nodes[0] === nodes[1]) {
+    // a part with both ends on one node is physical (a shorted turn, a shorted winding, a source whose ends
+    // meet) and the equations stay defined; only a voltage source there contradicts itself
+    if (nodes.length === 2 && nodes[0] === nodes[1] && kind === 'voltage-source') {
       throw new ModelRefusal(`element "${id}" (${kind}): both terminals are on node "${nodes[0]}"; connect it between two different nodes or remove it`, [{ kind: 'element', id }]);
     }
-    if (nodes.length === 4 && (nodes[0] === nodes[1] || nodes[2] === nodes[3])) {
-      const side = nodes[0] === nodes[1] ? 'primary' : 'secondary';
-      throw new ModelRefusal(`element "${id}" (ideal-transformer): the ${side} winding has both terminals on one node; connect it between two different nodes`, [{ kind: 'element', id }]);
+    if (nodes.length === 4 && nodes[0] === nodes[1] && nodes[2] === nodes[3]) {
+      throw new ModelRefusal(`element "${id}" (ideal-transformer): both windings have both terminals on one node, so its current is undetermined; connect a winding between two different nodes`, [{ kind: 'element', id }]);
     }
     elements.push(el);
   }

@@ -17,6 +17,8 @@
 import type { GraphModel } from '../../model/graph';
 import type { CscPattern } from '../sparse/types';
 import { defOf, type StampState, type StampTarget } from '../elements/registry';
+import { branchIncidence } from '../elements/types';
+import type { ResistorEl } from '../elements/resistor';
 import type { Topology } from './topology';
 import type { GammaRow, Mutual } from './windings';
 
@@ -25,6 +27,12 @@ export interface DescriptorOptions {
   reduced?: Map<number, GammaRow>;
   /** per-element stamp state (a switch's position); each element's own fields by default */
   state?: (elementIndex: number) => StampState;
+  /**
+   * resistors (element index) given a branch current, row V − R·I = 0, instead of the conductance 1/R: a
+   * resistance far below its neighbours' keeps its current and voltage exact that way (its node voltages
+   * differ only in digits the nodal form rounds away); none by default
+   */
+  branchResistors?: Set<number>;
 }
 
 export interface Descriptor {
@@ -60,6 +68,7 @@ const INV = 2;
 export function buildDescriptor(model: GraphModel, topo: Topology, mutuals: Mutual[], options: DescriptorOptions = {}): Descriptor {
   const reduced = options.reduced ?? new Map<number, GammaRow>();
   const stateOf = options.state ?? (() => NO_STATE);
+  const branchResistors = options.branchResistors ?? new Set<number>();
   const elements = model.elements;
   const nNodes = topo.nodeNames.length;
   const nodeUnknown = new Int32Array(nNodes).fill(-1);
@@ -74,7 +83,7 @@ export function buildDescriptor(model: GraphModel, topo: Topology, mutuals: Mutu
   const nodeCount = n;
   const branchUnknown = new Int32Array(elements.length).fill(-1);
   for (let i = 0; i < elements.length; i++) {
-    const count = reduced.has(i) ? 0 : defOf(elements[i]).branches;
+    const count = reduced.has(i) ? 0 : branchResistors.has(i) ? 1 : defOf(elements[i]).branches;
     if (count > 0) {
       branchUnknown[i] = n;
       for (let b = 0; b < count; b++) unknownOwner.push(i);
@@ -106,7 +115,11 @@ export function buildDescriptor(model: GraphModel, topo: Topology, mutuals: Mutu
     srcPtr[i] = srcRow.length;
     const row = reduced.get(i);
     if (row) stampReduced(st, row, i, terminals, nodeUnknown);
-    else defOf(elements[i]).stamp(elements[i] as never, target, stateOf(i));
+    else if (branchResistors.has(i)) {
+      const k = branchUnknown[i];
+      branchIncidence(target, k, 0, 1, 1);
+      st.add(k, k, G, -(elements[i] as ResistorEl).ohms);
+    } else defOf(elements[i]).stamp(elements[i] as never, target, stateOf(i));
   }
   srcPtr[elements.length] = srcRow.length;
   for (const mu of mutuals) {
@@ -133,6 +146,45 @@ export function buildDescriptor(model: GraphModel, topo: Topology, mutuals: Mutu
 }
 
 const NO_STATE: StampState = {};
+
+/** How far below every other resistance at its nodes a resistance gets a branch current (1e-3: three decades). */
+const SMALL_RESISTANCE = 1e-3;
+
+/**
+ * Resistors between two non-reference nodes that each have another resistor, with a resistance below
+ * SMALL_RESISTANCE times every such neighbour's: a 1 µΩ bar between 1 GΩ parts has node voltages that agree to 15 digits,
+ * so its current from their difference would be mostly rounding; a branch current keeps it exact.
+ */
+export function smallResistors(model: GraphModel, topo: Topology): Set<number> {
+  const smallest = new Map<number, { ohms: number; by: number; second: number }>();
+  // a reference node is everyone's neighbour and fixes its own voltage exactly: only other nodes count
+  const note = (v: number, ohms: number, i: number) => {
+    if (topo.isReference[v]) return;
+    const s = smallest.get(v);
+    if (!s) smallest.set(v, { ohms, by: i, second: Infinity });
+    else if (ohms < s.ohms) smallest.set(v, { ohms, by: i, second: s.ohms });
+    else if (ohms < s.second) s.second = ohms;
+  };
+  const { terminals } = topo;
+  model.elements.forEach((el, i) => {
+    if (el.kind !== 'resistor') return;
+    note(terminals[4 * i], el.ohms, i);
+    note(terminals[4 * i + 1], el.ohms, i);
+  });
+  const out = new Set<number>();
+  model.elements.forEach((el, i) => {
+    if (el.kind !== 'resistor') return;
+    let others = Infinity;
+    for (const v of [terminals[4 * i], terminals[4 * i + 1]]) {
+      const s = smallest.get(v);
+      // no other resistor at this node (or a reference node): 0, so no branch
+      const neighbour = s ? (s.by === i ? s.second : s.ohms) : 0;
+      others = Math.min(others, Number.isFinite(neighbour) ? neighbour : 0);
+    }
+    if (el.ohms < SMALL_RESISTANCE * others) out.add(i);
+  });
+  return out;
+}
 
 /**
  * A winding of a reduced group: I_i = Σ_j Γ_ij·V_j/(jω), an admittance

@@ -9,10 +9,10 @@ import { nameTable } from '../../model/names';
 import { ModelRefusal } from '../errors';
 import { buildTopology, type Topology } from '../core/topology';
 import { checkSolvable } from '../core/checks';
-import { collectMutuals, reciprocalInductances } from '../core/windings';
-import { buildDescriptor, rightHandSide, type Descriptor } from '../core/descriptor';
+import { collectMutuals } from '../core/windings';
+import { buildDescriptor, rightHandSide, smallResistors, type Descriptor } from '../core/descriptor';
 import { defOf } from '../elements/registry';
-import { analyze, ComplexSparseLU, type LuSymbolic } from '../lu-backend';
+import { analyze, ComplexSparseLU, type LuOptions, type LuSymbolic } from '../lu-backend';
 import { SingularMatrixError, type CscPattern } from '../sparse/types';
 
 /**
@@ -21,6 +21,15 @@ import { SingularMatrixError, type CscPattern } from '../sparse/types';
  * needs (an inductance is a short there).
  */
 export type MnaForm = 'ac' | 'dc';
+
+/**
+ * Rows and columns equilibrated before pivoting and before the singular test (sparse/scaling.ts), so that
+ * a spread of impedances across many decades is judged by scaled pivots, not absolute ones.
+ */
+const LU_OPTIONS: LuOptions = { scale: 'rows-cols' };
+
+/** Condition number above which a solve warns: 1e10 leaves about six of sixteen digits (common practice). */
+const PRECISION_KAPPA = 1e10;
 
 /** Raw solution at one frequency: node voltages and branch currents as typed arrays. */
 export interface RawSolution {
@@ -67,7 +76,10 @@ export class SolverSession {
     this.topo = buildTopology(model);
     const mutuals = collectMutuals(model);
     this.form = form;
-    this.mna = buildDescriptor(model, this.topo, mutuals, { reduced: form === 'ac' ? reciprocalInductances(model, mutuals) : undefined });
+    // every winding keeps its branch current at every frequency: rebuilding it from node voltages through
+    // 1/(jωL) (the reciprocal form, core/windings.ts) cancels digits when ωL is small beside its surroundings
+    // (error ~ 1e-16·|Z around|/|ωL|), while the branch row V − jωL·I = 0 yields I exactly
+    this.mna = buildDescriptor(model, this.topo, mutuals, { branchResistors: smallResistors(model, this.topo) });
     const n = this.mna.n;
     const srcRe = new Float64Array(model.elements.length);
     const srcIm = new Float64Array(model.elements.length);
@@ -94,7 +106,7 @@ export class SolverSession {
       previous.im = new Float64Array(0);
     } else {
       this.symbolic = analyze(this.mna.pattern);
-      this.lu = new ComplexSparseLU(this.symbolic);
+      this.lu = new ComplexSparseLU(this.symbolic, LU_OPTIONS);
       this.re = new Float64Array(this.mna.pattern.rowIdx.length);
       this.im = new Float64Array(this.mna.pattern.rowIdx.length);
     }
@@ -125,7 +137,7 @@ export class SolverSession {
     }
     if (!this.lu) {
       // taken over by a later session: this one gets buffers of its own again
-      this.lu = new ComplexSparseLU(this.symbolic);
+      this.lu = new ComplexSparseLU(this.symbolic, LU_OPTIONS);
       this.re = new Float64Array(this.mna.pattern.rowIdx.length);
       this.im = new Float64Array(this.mna.pattern.rowIdx.length);
     }
@@ -174,7 +186,23 @@ export class SolverSession {
   }
 
   solveAt(frequencyHz: number): SolveResult {
-    return this.toResult(this.solveRaw(frequencyHz));
+    const result = this.toResult(this.solveRaw(frequencyHz));
+    const warning = (frequencyHz === 0 && this.dcTwin ? this.dcTwin : this).precisionWarning(frequencyHz);
+    if (warning) result.warnings.push(warning);
+    return result;
+  }
+
+  /**
+   * After a solve: a warning naming the unknown the estimate points at when the condition number of the
+   * system (Hager–Higham 1-norm estimate from the LU, sparse/condition.ts) exceeds 1e10, so that the
+   * answer may have lost more than six of double precision's sixteen digits; null otherwise.
+   */
+  private precisionWarning(frequencyHz: number): string | null {
+    if (!this.lu || !this.factored) return null;
+    const { kappa, column } = this.lu.conditionEstimate();
+    if (!(kappa > PRECISION_KAPPA)) return null;
+    const at = this.mna.unknownLabel(column);
+    return `${at.kind} "${at.id}": the circuit's values span so many decades at ${frequencyHz} Hz that the results may have lost more than six digits (condition number about ${Number(kappa.toPrecision(2))}); check the values of the parts at it`;
   }
 
   private singularRefusal(column: number, frequencyHz: number): ModelRefusal {
@@ -297,6 +325,15 @@ function readPort(session: SolverSession, sol: RawSolution, i: number, p: number
   switch (cur.kind) {
     case 'resistance': {
       const ohms = cur.ohms(el as never, {});
+      const k = sol.mna.branchUnknown[i];
+      if (k >= 0) {
+        // a small resistance with a branch current (core/descriptor.ts): I exact, and V = R·I
+        out.ir = sol.xRe[k];
+        out.ii = sol.xIm[k];
+        out.vr = ohms * out.ir;
+        out.vi = ohms * out.ii;
+        return;
+      }
       out.ir = vr / ohms;
       out.ii = vi / ohms;
       return;
