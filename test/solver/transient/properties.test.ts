@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { parseGraphModel, transferFunction, transientGraph } from '../../../src/solver';
+import { ModelRefusal, parseGraphModel, transferFunction, transientGraph } from '../../../src/solver';
 import type { GraphElement, GraphModel, InductorEl } from '../../../src/model/graph';
 import { build, circuitSpec } from '../../reference/randomCircuits';
 
@@ -48,7 +48,15 @@ describe('time response invariants on random circuits', () => {
         const fastest = Math.max(2 * Math.PI * 1000, ...transferFunction(m, source, `node:${m.elements[0].nodes[0]}`).naturalFrequencies.map((p) => Math.hypot(p.re, p.im)));
         const n = 4000;
         const stop = 40 / fastest;
-        const r = transientGraph(m, { stopS: stop, stepS: stop / n, tolerance: 1e-9, start: 'given' });
+        let r: ReturnType<typeof transientGraph>;
+        try {
+          r = transientGraph(m, { stopS: stop, stepS: stop / n, tolerance: 1e-9, start: 'given' });
+        } catch (e) {
+          // a random circuit the engine refuses (a node left with nothing but a part on itself) has no balance
+          // to check; the refusals themselves are tested through the command line
+          if (e instanceof ModelRefusal) return fc.pre(false);
+          throw e;
+        }
         const h = stop / n;
         // Simpson's rule over the samples (n even)
         const integral = (p: number[]) => {
