@@ -17,7 +17,8 @@ import { worldToScreen } from './store/actions';
 import { pinPositions } from './model/parts/registry';
 import { overlayProbe, sheetProbe } from './store/probe';
 import { sweepTestHold } from './ui/analysis/sweepRunner';
-import { drawnTags } from './canvas/drawOverlay';
+import { drawnArrows, drawnTags } from './canvas/drawOverlay';
+import { timeTestHold } from './ui/analysis/timeRunner';
 import './ui/app.css';
 
 const storage = window.localStorage;
@@ -71,6 +72,8 @@ const tools = new ToolController(store);
   toScreen: (x: number, y: number) => worldToScreen(store.getState().view, x, y),
   /** the reading tags last drawn on the canvas, as boxes in sheet units */
   tags: () => drawnTags.boxes,
+  /** the current arrows last drawn (sheet units), and the instant of the time response they show (null: the phasors) */
+  arrows: () => ({ instantS: drawnArrows.instantS, arrows: drawnArrows.arrows }),
   /** a part's pin in sheet units */
   pin: (ref: string, pin: number) => {
     const p = store.getState().sheet.parts.find((q) => q.ref === ref);
@@ -90,6 +93,8 @@ const tools = new ToolController(store);
     watchdog,
     /** while on, sweeps wait after their first chunk until cancelled */
     holdSweeps: (on: boolean) => void (sweepTestHold.on = on),
+    /** while on, time responses wait before their first step until cancelled */
+    holdTimeRuns: (on: boolean) => void (timeTestHold.on = on),
   },
 };
 

@@ -27,6 +27,8 @@ export interface OverlayInput {
   visible: Rect;
   hoverNode: string | null;
   readout: 'polar' | 'rect';
+  /** the result is one instant of a time response (real values): arrows follow each current's sign, scaled by the run's largest current */
+  instant?: { maxAmps: number; timeS: number } | null;
 }
 
 function arrow(c: CanvasRenderingContext2D, from: Point, to: Point, width: number, color: string): void {
@@ -73,6 +75,9 @@ function measureWith(c: CanvasRenderingContext2D): TextMeasure {
   };
 }
 
+/** The arrows last drawn (sheet units) and whether they showed an instant of a time response (tests read them). */
+export const drawnArrows: { instantS: number | null; arrows: { from: Point; to: Point; width: number; element?: string }[] } = { instantS: null, arrows: [] };
+
 /** The boxes of the tags last drawn, in sheet units (tests read them to check that no two overlap). */
 export const drawnTags: { boxes: { x0: number; y0: number; x1: number; y1: number; text: string }[] } = { boxes: [] };
 
@@ -95,10 +100,10 @@ function layoutFor(c: CanvasRenderingContext2D, o: OverlayInput, crowdedAbove: n
   // the hovered node matters only when tags are shown on hover
   const crowded = o.circuit!.topology.anchors.size > crowdedAbove;
   const focusNode = crowded ? o.hoverNode : null;
-  const key = [o.sheet, o.result, o.circuit, o.hidden, crowdedAbove, focusNode, o.readout];
+  const key = [o.sheet, o.result, o.circuit, o.hidden, crowdedAbove, focusNode, o.readout, o.instant?.maxAmps];
   if (!layoutCache || layoutCache.key.some((k, i) => k !== key[i])) {
     // tags moved off parts, designators and each other where a nearby spot is free (the SVG places them alike)
-    const raw = overlayLayout(o.sheet, o.circuit!, o.result!, { hidden: o.hidden, crowdedAbove, focusNode, readout: o.readout });
+    const raw = overlayLayout(o.sheet, o.circuit!, o.result!, { hidden: o.hidden, crowdedAbove, focusNode, readout: o.readout, instant: o.instant ? { maxAmps: o.instant.maxAmps } : undefined });
     layoutCache = { key, layout: raw.tags.length <= 400 ? declutterTags(o.sheet, raw, measureWith(c)) : raw };
   }
   return layoutCache.layout;
@@ -112,6 +117,8 @@ export function drawOverlay(c: CanvasRenderingContext2D, o: OverlayInput): void 
   c.lineCap = 'round';
   const inView = (p: Point) => p.x > o.visible.x0 - 80 && p.x < o.visible.x1 + 80 && p.y > o.visible.y0 - 40 && p.y < o.visible.y1 + 40;
 
+  drawnArrows.arrows = [];
+  drawnArrows.instantS = o.instant ? o.instant.timeS : null;
   if (o.result && o.circuit) {
     // zoomed far out every node tag would overlap: then only the one under the pointer is shown
     const layout = layoutFor(c, o, v.zoom < 0.6 ? -1 : 60);
@@ -119,7 +126,11 @@ export function drawOverlay(c: CanvasRenderingContext2D, o: OverlayInput): void 
     drawnTags.boxes = [];
     const currentColor = o.stale ? THEME.stale : THEME.current;
     const voltageColor = o.stale ? THEME.stale : THEME.voltage;
-    for (const a of layout.arrows) if (inView(a.to)) arrow(c, a.from, a.to, a.width, currentColor);
+    for (const a of layout.arrows) {
+      if (!inView(a.to)) continue;
+      arrow(c, a.from, a.to, a.width, currentColor);
+      drawnArrows.arrows.push(a);
+    }
     const currentLabels = v.zoom > 0.5;
     for (const t of layout.tags) {
       if (!inView(t)) continue;

@@ -79,20 +79,8 @@ export function openSecondaries(model: GraphModel): Caution[] {
   const out: Caution[] = [];
   for (const t of model.elements) {
     if (t.kind !== 'ideal-transformer') continue;
-    const parent = new Map<string, string>();
-    const find = (n: string): string => {
-      let r = n;
-      while (parent.has(r) && parent.get(r) !== r) r = parent.get(r)!;
-      return r;
-    };
-    const join = (a: string, b: string) => { const ra = find(a), rb = find(b); if (ra !== rb) parent.set(ra, rb); };
-    for (const e of model.elements) {
-      if (e === t) continue;
-      if (e.kind === 'ideal-transformer') { join(e.nodes[0], e.nodes[1]); join(e.nodes[2], e.nodes[3]); continue; }
-      if (e.kind === 'current-source') continue; // a current source closes no path for the secondary current
-      if (e.kind === 'switch' && !e.closed) continue; // nor does an open switch (its leakage resistance is no burden)
-      join(e.nodes[0], e.nodes[1]);
-    }
+    // a current source closes no path for the secondary current, nor does an open switch (its leakage resistance is no burden)
+    const find = galvanicSections(model, (e) => e !== t && !(e.kind === 'switch' && !e.closed));
     const [p1, p2, s1, s2] = t.nodes;
     if (find(s1) === find(s2)) continue;
     const driven = model.elements.some((e) => e.kind === 'current-source' && [find(e.nodes[0]), find(e.nodes[1])].some((r) => r === find(p1) || r === find(p2)));
@@ -104,4 +92,25 @@ export function openSecondaries(model: GraphModel): Caution[] {
     });
   }
   return out;
+}
+
+/**
+ * The galvanic sections of a model: `find(node)` names the section a node is
+ * in. Each element `joins` allows joins its nodes (a two-port each side); a
+ * current source joins nothing.
+ */
+export function galvanicSections(model: GraphModel, joins: (e: GraphModel['elements'][number]) => boolean = () => true): (node: string) => string {
+  const parent = new Map<string, string>();
+  const find = (n: string): string => {
+    let r = n;
+    while (parent.has(r) && parent.get(r) !== r) r = parent.get(r)!;
+    return r;
+  };
+  const join = (a: string, b: string) => { const ra = find(a), rb = find(b); if (ra !== rb) parent.set(ra, rb); };
+  for (const e of model.elements) {
+    if (e.kind === 'current-source' || !joins(e)) continue;
+    if (e.kind === 'ideal-transformer') { join(e.nodes[0], e.nodes[1]); join(e.nodes[2], e.nodes[3]); continue; }
+    join(e.nodes[0], e.nodes[1]);
+  }
+  return find;
 }

@@ -47,7 +47,8 @@ export function partLabelSpot(part: Part, box: Rect): { x: number; y: number; al
   return { x: (box.x0 + box.x1) / 2, y: box.y0 - 14, align: 'center' };
 }
 
-export interface ArrowLayout { from: Point; to: Point; width: number }
+/** An arrow; `element` names the graph element whose current a part's arrow shows (none on wires). */
+export interface ArrowLayout { from: Point; to: Point; width: number; element?: string }
 
 export interface TagLayout {
   /** the anchor point; `align` says which side of it the text runs */
@@ -72,6 +73,14 @@ export interface OverlayLayoutOptions {
   focusNode?: string | null;
   /** polar (default) or rectangular readouts */
   readout?: Readout;
+  /**
+   * Instantaneous values (a time response at one instant): every value is
+   * real (im 0), each arrow points the way its current flows at that instant,
+   * tags read the value with its sign (currents by their size: the arrow gives
+   * the sense), and arrow weights are scaled by `maxAmps` (the largest current
+   * of the whole run) so that they grow and shrink as the instant moves.
+   */
+  instant?: { maxAmps: number };
 }
 
 const isTwo = (r: ElementResult): r is TwoTerminalResult => 'current' in r;
@@ -81,7 +90,18 @@ export function currentWeight(m: number, maxI: number): number {
   return 1 + 2.6 * Math.sqrt(m / (maxI || 1));
 }
 
+/** An instantaneous value as a tag: "-12.3 V"; a current by its size ("1.5 A"), as its arrow gives its sense. */
+export function instantText(v: number, unit: string, signed: boolean, digits = 4): string {
+  const x = signed ? v : Math.abs(v);
+  return x === 0 ? `0 ${unit}` : formatSI(x, unit, digits);
+}
+
 export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: SolveResult, o: OverlayLayoutOptions = {}): OverlayLayout {
+  const instant = o.instant;
+  const currentText = (z: ComplexJson) => (instant ? instantText(z.re, 'A', false) : phasorText(z, 'A', 4, o.readout));
+  const voltageText = (z: ComplexJson) => (instant ? instantText(z.re, 'V', true) : phasorText(z, 'V', 4, o.readout));
+  /** −1 where an instantaneous current flows against its reference direction */
+  const sense = (z: ComplexJson) => (instant && z.re < 0 ? -1 : 1);
   const arrows: ArrowLayout[] = [];
   const tags: TagLayout[] = [];
   const display = sheet.display ?? defaultDisplay();
@@ -92,10 +112,11 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
     const r = result.elements[id];
     maxI = Math.max(maxI, isTwo(r) ? mag(r.current) : Math.max(mag(r.currents[0]), mag(r.currents[1])));
   }
+  if (instant && instant.maxAmps > 0) maxI = instant.maxAmps;
   const floor = maxI * 1e-9;
   const weight = (m: number) => currentWeight(m, maxI);
-  const pushArrow = (c: Point, d: Point, half: number, m: number) =>
-    arrows.push({ from: { x: c.x - d.x * half, y: c.y - d.y * half }, to: { x: c.x + d.x * half, y: c.y + d.y * half }, width: weight(m) });
+  const pushArrow = (c: Point, d: Point, half: number, m: number, element?: string) =>
+    arrows.push({ from: { x: c.x - d.x * half, y: c.y - d.y * half }, to: { x: c.x + d.x * half, y: c.y + d.y * half }, width: weight(m), ...(element ? { element } : {}) });
 
   for (const id in result.elements) {
     const partId = circuit.partOfElement.get(id);
@@ -110,11 +131,12 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
       const [p0, p1] = pinPositions(part);
       const mid = { x: (p0.x + p1.x) / 2, y: (p0.y + p1.y) / 2 };
       const vertical = Math.abs(p1.y - p0.y) > Math.abs(p1.x - p0.x);
-      const d = vertical ? { x: 0, y: Math.sign(p1.y - p0.y) } : { x: Math.sign(p1.x - p0.x), y: 0 };
+      const sg = sense(r.current);
+      const d = vertical ? { x: 0, y: sg * Math.sign(p1.y - p0.y) } : { x: sg * Math.sign(p1.x - p0.x), y: 0 };
       const box = partBox(part);
       const off = vertical ? { x: box.x0 - 9, y: mid.y } : { x: mid.x, y: box.y1 + 9 };
-      pushArrow(off, d, 11, m);
-      const text = phasorText(r.current, 'A', 4, o.readout);
+      pushArrow(off, d, 11, m, id);
+      const text = currentText(r.current);
       if (vertical) tags.push({ x: box.x1 + 3, y: mid.y + 25, align: 'left', kind: 'current', text });
       else tags.push({ x: off.x, y: off.y + 15, align: 'center', kind: 'current', text });
     } else {
@@ -123,9 +145,10 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
         if (m <= floor) return;
         const lx = side === 0 ? -40 : 40;
         const inward = side === 0 ? 1 : -1;
-        arrows.push({ from: toSheet(part, lx + inward * 6, -38), to: toSheet(part, lx + inward * 24, -38), width: weight(m) });
+        const [a, b] = [toSheet(part, lx + inward * 6, -38), toSheet(part, lx + inward * 24, -38)];
+        arrows.push(sense(cur) > 0 ? { from: a, to: b, width: weight(m), element: id } : { from: b, to: a, width: weight(m), element: id });
         const t = toSheet(part, lx + inward * 15, -50);
-        tags.push({ x: t.x, y: t.y, align: 'center', kind: 'current', text: phasorText(cur, 'A', 4, o.readout) });
+        tags.push({ x: t.x, y: t.y, align: 'center', kind: 'current', text: currentText(cur) });
       });
     }
   }
@@ -134,9 +157,10 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
     const elementOfPart = new Map<string, string>();
     for (const [el, part] of circuit.partOfElement) elementOfPart.set(part, el);
     for (const f of wireFlows(sheet, result, elementOfPart)) {
-      pushArrow(f.at, f.dir, 7, mag(f.current));
+      const sg = sense(f.current);
+      pushArrow(f.at, { x: sg * f.dir.x, y: sg * f.dir.y }, 7, mag(f.current));
       if (f.repeats) continue;
-      const text = phasorText(f.current, 'A', 4, o.readout);
+      const text = currentText(f.current);
       if (f.dir.y === 0) tags.push({ x: f.at.x, y: f.at.y + 14, align: 'center', kind: 'current', text });
       else tags.push({ x: f.at.x + 8, y: f.at.y, align: 'left', kind: 'current', text });
     }
@@ -149,7 +173,7 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
     if (crowded && name !== o.focusNode) continue;
     const at = anchors.get(name);
     if (!at) continue;
-    const text = `${name}: ${phasorText(result.nodes[name], 'V', 4, o.readout)}`;
+    const text = `${name}: ${voltageText(result.nodes[name])}`;
     if (at.side === 'left') {
       // clear of the part standing below the anchor (a winding's turns bulge to one side)
       let right = at.x;

@@ -3,7 +3,7 @@
  * promise with progress reports and a cancel. A crashed worker is replaced
  * and every open question is refused with a message.
  */
-import type { AnalysisReply, AnalysisRequest, CompareAnswer, InspectAnswer, PowerAnswer, SweepAnswer, SweepSpec, TAnswer, TransferAnswer } from '../worker/protocol';
+import type { AnalysisReply, AnalysisRequest, CompareAnswer, InspectAnswer, PowerAnswer, SweepAnswer, SweepSpec, TAnswer, TransferAnswer, TransientAnswer, TransientSpec } from '../worker/protocol';
 import type { GraphModel, SolveResult } from '../model/graph';
 
 export interface AnalysisWorkerLike {
@@ -82,6 +82,28 @@ export class AnalysisClient {
   sweep(model: GraphModel, spec: SweepSpec, progress?: (done: number, total: number) => void): { promise: Promise<SweepAnswer>; cancel: () => void } {
     const { id, promise } = this.ask<SweepAnswer>({ kind: 'sweep', model, spec }, progress);
     return { promise, cancel: () => this.worker?.postMessage({ id: this.next++, kind: 'cancel', target: id }) };
+  }
+
+  /**
+   * A time response with progress; `cancel()` stops the worker it runs in (a
+   * run cannot read messages while it steps), so give time responses a client
+   * of their own. A held run (spec.hold) is cancelled by message instead.
+   */
+  transient(model: GraphModel, spec: TransientSpec, progress?: (done: number, total: number) => void): { promise: Promise<TransientAnswer>; cancel: () => void } {
+    const { id, promise } = this.ask<TransientAnswer>({ kind: 'transient', model, spec }, progress);
+    return {
+      promise,
+      cancel: () => {
+        const o = this.open.get(id);
+        if (!o) return;
+        if (spec.hold) return this.worker?.postMessage({ id: this.next++, kind: 'cancel', target: id });
+        this.open.delete(id);
+        this.stop();
+        for (const other of this.open.values()) other.reject(new Error('the analysis was stopped; try again'));
+        this.open.clear();
+        o.reject(new CancelledError());
+      },
+    };
   }
 
   stop() {

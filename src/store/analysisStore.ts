@@ -1,11 +1,40 @@
 /** State of the analysis views (outside the undoable sheet): which view is open, T-equivalents drawn, the last sweep. */
 import { createStore } from 'zustand/vanilla';
-import type { SweepAnswer, SweepQuantity } from '../worker/protocol';
-import type { SolveResult } from '../model/graph';
+import type { SweepAnswer, SweepQuantity, TransientAnswer } from '../worker/protocol';
+import type { GraphModel, SolveResult } from '../model/graph';
 import type { TRecord } from '../model/tEquivalentSheet';
 import type { ValueTarget } from '../model/valueTarget';
 
-export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain';
+export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain' | 'time';
+
+/** What a time-view trace plots: a node's voltage, or an element's voltage or current (a two-port's side 0 or 1). */
+export type TimeQuantity = { kind: 'node'; node: string } | { kind: 'voltage' | 'current'; element: string; side?: 0 | 1 };
+
+export interface TimeSettings {
+  stopS: number;
+  /** output samples after t = 0 */
+  samples: number;
+  start: 'given' | 'dc';
+  traces: TimeQuantity[];
+}
+
+export interface TimeState {
+  settings: TimeSettings;
+  status: 'idle' | 'running' | 'done' | 'cancelled' | 'failed';
+  progress: number;
+  answer: TransientAnswer | null;
+  /** the sheet the answer was run on (its derived circuit), so that the sheet overlay matches it */
+  sheetOf: GraphModel | null;
+  message: string;
+  /** the cursor's time (s), or null */
+  cursorS: number | null;
+  /** the measuring window (s) */
+  window: [number, number] | null;
+  /** the shown span of the time axis (s); null: the whole run */
+  span: [number, number] | null;
+}
+
+export const DEFAULT_TIME: TimeSettings = { stopS: 0.1, samples: 2000, start: 'given', traces: [] };
 
 export interface SweepTrace { label: string; quantity: SweepQuantity; unit: string }
 
@@ -47,6 +76,7 @@ export interface AnalysisState {
   };
   /** the winding whose dot the comparison flips */
   compareWinding: string | null;
+  time: TimeState;
 }
 
 export const DEFAULT_SWEEP: SweepSettings = { from: 10, to: 100e3, points: 400, log: true, db: true, traces: [], over: null };
@@ -57,6 +87,7 @@ export function createAnalysisStore() {
     substitutions: [],
     sweep: { settings: DEFAULT_SWEEP, status: 'idle', progress: 0, answer: null, shown: [], message: '', slider: null },
     compareWinding: null,
+    time: { settings: DEFAULT_TIME, status: 'idle', progress: 0, answer: null, sheetOf: null, message: '', cursorS: null, window: null, span: null },
   }));
 }
 

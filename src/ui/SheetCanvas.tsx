@@ -22,6 +22,8 @@ import { DragDrawing } from '../canvas/dragDrawing';
 import { nodeNear } from '../canvas/hover';
 import { noticesOf } from './Notices';
 import { THEME } from '../canvas/theme';
+import { analysisStore } from '../store/analysisStore';
+import { instantChanged, instantOverlay } from './analysis/timeOverlay';
 
 /** longest an edit waits (one frame) for its solve so both show together; the editor itself never blocks on the solver */
 const HOLD_MS = 16;
@@ -103,11 +105,14 @@ export function SheetCanvas() {
   const overlayFunc = (ctx: Konva.Context) => {
     const s = store.getState();
     const solve = s.solve;
+    // the time view's cursor on a run of this sheet: the circuit at that instant instead of its phasors
+    const instant = solve.status === 'refused' ? null : instantOverlay(s);
     drawOverlay(native(ctx), {
       sheet: s.sheet,
       hidden: s.preview ? caches.selection(s.selection) : null,
-      result: solve.result,
-      circuit: solve.circuit,
+      result: instant ? instant.result : solve.result,
+      circuit: instant ? instant.circuit : solve.circuit,
+      instant: instant ? { maxAmps: instant.maxAmps, timeS: instant.timeS } : null,
       refusal: solve.status === 'refused' ? solve.refusal : null,
       stale: solve.stale || solve.status === 'refused',
       view: s.view,
@@ -212,9 +217,13 @@ export function SheetCanvas() {
       if (s.selection !== p.selection) sheetLayer.current?.batchDraw();
       if (s.ghost !== p.ghost || s.wireDraft !== p.wireDraft || s.box !== p.box || s.pinCursor !== p.pinCursor) ui.current?.batchDraw();
     });
+    const unsubscribeTime = analysisStore.subscribe((a, b) => {
+      if (instantChanged(a, b)) overlay.current?.batchDraw();
+    });
     return () => {
       if (held) clearTimeout(held);
       unsubscribe();
+      unsubscribeTime();
     };
   }, [store]);
 

@@ -5,6 +5,7 @@
  * cancel message can arrive and stop it.
  */
 import type { AnalysisReply, AnalysisRequest } from './protocol';
+import { transferables, transientRun } from './transientTask';
 import { chunkRanges, compare, inspect, power, prepareSweep, tCheck, transfer } from './analysisTasks';
 
 declare const self: DedicatedWorkerGlobalScope;
@@ -38,6 +39,20 @@ async function sweep(req: Extract<AnalysisRequest, { kind: 'sweep' }>) {
   post({ id: req.id, type: 'done', value: { frequenciesHz: prepared.frequencies, ...(prepared.values ? { values: prepared.values } : {}), traces: prepared.traces.map((t) => Array.from(t)), ms: performance.now() - t0 } });
 }
 
+/**
+ * A time response: one synchronous run that posts progress as it goes. A run
+ * cannot read a cancel message while it steps, so the editor cancels one by
+ * stopping the worker it runs in (the time view has a worker of its own).
+ */
+async function transient(req: Extract<AnalysisRequest, { kind: 'transient' }>) {
+  if (req.spec.hold) {
+    if (!cancelled.has(req.id)) await new Promise<void>((resolve) => held.set(req.id, resolve));
+    if (cancelled.delete(req.id)) return post({ id: req.id, type: 'cancelled' });
+  }
+  const answer = transientRun(req.model, req.spec, (done, total) => post({ id: req.id, type: 'progress', done, total }));
+  self.postMessage({ id: req.id, type: 'done', value: answer } satisfies AnalysisReply, transferables(answer));
+}
+
 self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {
   const req = ev.data;
   try {
@@ -52,6 +67,7 @@ self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {
       case 'tcheck': return post({ id: req.id, type: 'done', value: tCheck(req.model, req.coupling) });
       case 'power': return post({ id: req.id, type: 'done', value: power(req.model, req.result) });
       case 'sweep': return await sweep(req);
+      case 'transient': return await transient(req);
       case 'transfer': return post({ id: req.id, type: 'done', value: transfer(req.model, req.input, req.output) });
     }
   } catch (e) {

@@ -87,6 +87,34 @@ export interface SweepAnswer {
   ms: number;
 }
 
+/** A time response run in the analysis worker (contract: time-and-s-domain.md, `transient`). */
+export interface TransientSpec {
+  stopS: number;
+  /** output samples after t = 0 (the output step is stopS / samples) */
+  samples: number;
+  tolerance?: number;
+  start?: 'given' | 'dc';
+  /** for tests: the run waits before its first step until cancelled (it can never finish before a cancel) */
+  hold?: boolean;
+}
+
+/**
+ * The run as columns of typed arrays (posted as transferables): `timesS`, one
+ * column per node voltage, and per element its voltage, current and power
+ * (a two-port: primary then secondary voltage and current). `steady` is the
+ * phasor steady state of a sine-driven circuit, with each switch in the state
+ * it ends the run in (null when some source is not a sine at the sheet's
+ * frequency, or the circuit has no steady state to reach).
+ */
+export interface TransientAnswer {
+  timesS: Float64Array;
+  nodes: { name: string; values: Float64Array }[];
+  elements: { id: string; voltage: Float64Array[]; current: Float64Array[]; power: Float64Array }[];
+  steady: SolveResult | null;
+  warnings: string[];
+  ms: number;
+}
+
 export type AnalysisRequest =
   | { id: number; kind: 'inspect'; model: GraphModel; result: SolveResult; coupling: string; pair?: [string, string] }
   | { id: number; kind: 'compare'; model: GraphModel; winding: string; coupling?: string }
@@ -94,6 +122,7 @@ export type AnalysisRequest =
   | { id: number; kind: 'power'; model: GraphModel; result: SolveResult }
   | { id: number; kind: 'sweep'; model: GraphModel; spec: SweepSpec }
   | { id: number; kind: 'transfer'; model: GraphModel; input: string; output: string }
+  | { id: number; kind: 'transient'; model: GraphModel; spec: TransientSpec }
   | { id: number; kind: 'cancel'; target: number };
 
 export type AnalysisReply =

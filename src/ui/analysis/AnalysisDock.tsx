@@ -13,11 +13,12 @@ import { PowerPanel } from './PowerPanel';
 import { SPlanePanel } from './SPlanePanel';
 import { SweepPanel } from './SweepPanel';
 import { TEquivalentPanel } from './TEquivalentPanel';
+import { TimePanel } from './TimePanel';
 import { useAnalysis } from './useSolved';
 import { openView } from '../../store/analysisActions';
 import './analysis.css';
 
-const TITLES = { compare: 'Dot comparison', tequiv: 'T-equivalent', sweep: 'Sweep', phasor: 'Phasors and waveforms', power: 'Power balance', sdomain: 'Poles and zeros (s-domain)' } as const;
+const TITLES = { compare: 'Dot comparison', tequiv: 'T-equivalent', sweep: 'Sweep', phasor: 'Phasors and waveforms', power: 'Power balance', sdomain: 'Poles and zeros (s-domain)', time: 'Time response' } as const;
 
 const DOCK_KEY = 'coilwright:dock-height';
 const readHeight = () => {
@@ -39,6 +40,7 @@ export function AnalysisTabs() {
       <CommandButton id="analysis-phasors" pressed={view === 'phasor'} />
       <CommandButton id="analysis-power" pressed={view === 'power'} />
       <CommandButton id="analysis-sdomain" pressed={view === 'sdomain'} />
+      <CommandButton id="analysis-time" pressed={view === 'time'} />
     </div>
   );
 }
@@ -82,6 +84,7 @@ export function AnalysisDock() {
         {view === 'phasor' && <PhasorPanel />}
         {view === 'power' && <PowerPanel />}
         {view === 'sdomain' && <SPlanePanel />}
+        {view === 'time' && <TimePanel />}
       </div>
     </section>
   );

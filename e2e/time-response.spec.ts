@@ -1,0 +1,139 @@
+import { expect, test, type Page } from '@playwright/test';
+import { abs, add, clickSheet, cx, div, mul, shot } from './helpers';
+
+// The circuit drawn: V1 (10 V RMS ∠0°, 1 kHz, following its phasor: 10·√2·cos ωt) → S1 (open at t = 0, closes at 1 ms;
+// 1 mΩ closed) → R1 (50 Ω) → L1 (10 mH, dot on top) to ground; L2 (20 mH, dot on top) loaded by R2 (100 Ω); k = 0.8.
+const f = 1000, V = 10, R1 = 50 + 0.001, L1 = 10e-3, L2 = 20e-3, R2 = 100, k = 0.8;
+const w = 2 * Math.PI * f;
+const M = k * Math.sqrt(L1 * L2);
+
+/**
+ * The load current's steady state, from the reflected impedance (field notes, "Coupled windings", from memory):
+ * I1 = V / (R1 + jωL1 + (ωM)²/(R2 + jωL2)), I2 = jωM·I1/(R2 + jωL2) (magnitude; its sign follows the dots).
+ * Its peak is √2·|I2| (RMS phasor to peak, common practice).
+ */
+function loadPeak(): number {
+  const zin = add(cx(R1, w * L1), div(cx((w * M) ** 2), cx(R2, w * L2)));
+  const i1 = div(cx(V), zin);
+  const i2 = div(mul(cx(0, w * M), i1), cx(R2, w * L2));
+  return Math.SQRT2 * abs(i2);
+}
+
+type Arrow = { from: { x: number; y: number }; to: { x: number; y: number }; width: number; element?: string };
+const arrowsOf = (page: Page) => page.evaluate(() => (window as any).__coilwright.arrows() as { instantS: number | null; arrows: Arrow[] });
+
+async function field(page: Page, id: string, text: string) {
+  const el = page.getByTestId(id);
+  await el.fill(text);
+  await el.press('Enter');
+}
+
+test('draw a source, a switch and a coupled pair; the time view reads the peak current and the sheet follows its cursor', async ({ page }, info) => {
+  await page.goto('/');
+  await page.getByTestId('sheet-canvas').click({ position: { x: 5, y: 5 } });
+  await page.keyboard.press('Alt+n');
+
+  // parts from the shelf keys and the mouse
+  await page.keyboard.press('4'); await clickSheet(page, 100, 200); // V1: pins (100,170) + and (100,230)
+  await page.keyboard.press('9'); await clickSheet(page, 200, 170); // S1: pins (170,170), (230,170)
+  await page.keyboard.press('1'); await clickSheet(page, 300, 170); // R1: pins (270,170), (330,170)
+  await page.keyboard.press('2'); await clickSheet(page, 400, 200); // L1: pins (400,170), (400,230)
+  await page.keyboard.press('2'); await clickSheet(page, 550, 200); // L2: pins (550,170), (550,230)
+  await page.keyboard.press('1'); await page.keyboard.press('.'); await clickSheet(page, 650, 200); // R2 standing
+  await page.keyboard.press('7'); await clickSheet(page, 100, 300); // ground
+
+  await page.keyboard.press('j');
+  await clickSheet(page, 100, 170); await clickSheet(page, 170, 170);
+  await clickSheet(page, 230, 170); await clickSheet(page, 270, 170);
+  await clickSheet(page, 330, 170); await clickSheet(page, 400, 170);
+  await clickSheet(page, 100, 230); await clickSheet(page, 100, 300);
+  await clickSheet(page, 400, 230); await clickSheet(page, 400, 300); await clickSheet(page, 100, 300);
+  await clickSheet(page, 550, 170); await clickSheet(page, 650, 170);
+  await clickSheet(page, 550, 230); await clickSheet(page, 550, 300); await clickSheet(page, 650, 300); await clickSheet(page, 650, 230);
+  await page.keyboard.press('p');
+
+  // values
+  await clickSheet(page, 300, 170); await field(page, 'field-value', '50');
+  await clickSheet(page, 400, 200); await field(page, 'field-value', '10 mH');
+  await clickSheet(page, 550, 200); await field(page, 'field-value', '20m');
+  await clickSheet(page, 650, 200); await field(page, 'field-value', '100');
+  await clickSheet(page, 100, 200); await field(page, 'field-value', '10');
+  // the switch: open at t = 0, closing at 1 ms
+  await clickSheet(page, 200, 165);
+  await page.getByTestId('switch-open').check();
+  await field(page, 'field-togglesS', '1m');
+  // couple the windings
+  await clickSheet(page, 400, 200);
+  await clickSheet(page, 550, 200, ['Shift']);
+  await page.keyboard.press('c');
+  await field(page, 'field-coupling', '0.8');
+  await clickSheet(page, 800, 450);
+  await field(page, 'sheet-frequency', '1k');
+  await expect(page.getByTestId('convention')).toContainText('1 kHz');
+  // the phasors are on the sheet (the switch is open in the phasor solve, so only a trickle flows)
+  await expect.poll(async () => (await arrowsOf(page)).arrows.length).toBeGreaterThan(0);
+  expect((await arrowsOf(page)).instantS).toBeNull();
+
+  // the time view from its key: 10 ms at 20 000 samples (0.5 µs apart)
+  await clickSheet(page, 800, 450);
+  await page.keyboard.press('r');
+  const panel = page.getByTestId('time-panel');
+  await field(page, 'time-stop', '10m');
+  await page.getByTestId('time-samples').fill('20000');
+  await panel.getByTestId('time-run').click();
+  await expect(panel.getByTestId('time-status')).toHaveAttribute('data-status', 'done');
+  await expect(panel.getByTestId('time-trace')).toHaveCount(3); // i(L1), i(L2) and v(V1), chosen first
+  // the source follows its phasor: the steady state is drawn faintly beside each trace
+  await expect(panel.getByTestId('time-steady')).toHaveCount(3);
+  await shot(page, info, '01-time-view');
+
+  // the measuring window dragged on the plot over its later part, where the closing transient has died away
+  // (its slower time constant is about 0.36 ms: the roots of (R1 + sL1)(R2 + sL2) − s²M², by hand)
+  const plot = panel.getByTestId('time-plot').locator('svg');
+  const box = (await plot.boundingBox())!;
+  await page.mouse.move(box.x + box.width * 0.62, box.y + box.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(box.x + box.width * 0.8, box.y + box.height / 2, { steps: 5 });
+  await page.mouse.move(box.x + box.width * 0.96, box.y + box.height / 2, { steps: 5 });
+  await page.mouse.up();
+  const from = Number(await panel.getByTestId('time-window-text').getAttribute('data-from'));
+  expect(from).toBeGreaterThan(5e-3);
+  const row = panel.locator('[data-testid="time-measures"] tr[data-name="i(L2)"]');
+  // the load current's peak over whole steady periods: √2·|I2| from the reflected impedance (closed form above)
+  const peak = Number(await row.getByTestId('measure-peak').getAttribute('data-value'));
+  expect(Math.abs(Math.abs(peak) - loadPeak()) / loadPeak()).toBeLessThan(2e-3);
+  // and its RMS is the phasor's magnitude, peak/√2 (sinusoid, standard result); mean about 0
+  const rms = Number(await row.getByTestId('measure-rms').getAttribute('data-value'));
+  expect(Math.abs(rms - loadPeak() / Math.SQRT2) / (loadPeak() / Math.SQRT2)).toBeLessThan(5e-3);
+  await expect(panel).not.toContainText(/NaN|Infinity|null/);
+
+  // scrub the cursor with the keyboard: from the end, back a fiftieth of the run (72° of the 1 kHz wave) at a time
+  await plot.focus();
+  await page.keyboard.press('End');
+  const seen: { i: number; down: boolean; width: number }[] = [];
+  for (let step = 0; step < 6; step++) {
+    if (step > 0) await page.keyboard.press('Shift+ArrowLeft');
+    const readings = panel.getByTestId('time-readings');
+    await expect(readings).not.toHaveAttribute('data-cursor', '');
+    const at = Number(await readings.getAttribute('data-cursor'));
+    // the sheet shows that instant
+    await expect.poll(async () => (await arrowsOf(page)).instantS).toBe(at);
+    const i = Number(await readings.locator('tr[data-name="i(L2)"]').getByTestId('time-reading').getAttribute('data-value'));
+    const a = (await arrowsOf(page)).arrows.find((x) => x.element === 'L2');
+    if (Math.abs(i) < 1e-6) continue;
+    expect(a, `an arrow beside L2 at t = ${at}`).toBeTruthy();
+    seen.push({ i, down: a!.to.y > a!.from.y, width: a!.width });
+  }
+  // L2 stands with pin 0 on top: its reference runs downwards, so the arrow points down exactly when i(L2) > 0 (graph-model reference directions)
+  for (const s of seen) expect(s.down).toBe(s.i > 0);
+  // over a period the current flows both ways, so the arrow turns; and it is drawn heavier for the larger current
+  expect(new Set(seen.map((s) => s.down)).size).toBe(2);
+  const big = seen.reduce((a, b) => (Math.abs(b.i) > Math.abs(a.i) ? b : a));
+  const small = seen.reduce((a, b) => (Math.abs(b.i) < Math.abs(a.i) ? b : a));
+  expect(big.width).toBeGreaterThan(small.width);
+  await shot(page, info, '02-sheet-follows-cursor');
+
+  // leaving the time view brings the phasors back
+  await page.getByRole('button', { name: /Close the analysis view/ }).click();
+  await expect.poll(async () => (await arrowsOf(page)).instantS).toBeNull();
+});
