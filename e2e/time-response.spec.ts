@@ -1,4 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
+import { readFileSync } from 'node:fs';
+import { pathToFileURL } from 'node:url';
+import { parseCsv } from '../src/export/csv';
 import { abs, add, clickSheet, cx, div, mul, shot } from './helpers';
 
 // The circuit drawn: V1 (10 V RMS ∠0°, 1 kHz, following its phasor: 10·√2·cos ωt) → S1 (open at t = 0, closes at 1 ms;
@@ -136,4 +139,64 @@ test('draw a source, a switch and a coupled pair; the time view reads the peak c
   // leaving the time view brings the phasors back
   await page.getByRole('button', { name: /Close the analysis view/ }).click();
   await expect.poll(async () => (await arrowsOf(page)).instantS).toBeNull();
+});
+
+test('the wireless pair over time: a bad stop time refused, Cancel, the traces as CSV, the plot and its measurements on the SVG sheet', async ({ page, context }, info) => {
+  await page.goto('/');
+  await page.getByRole('button', { name: /Sheets/ }).click();
+  await page.locator('[data-example="wireless"]').click();
+  await expect(page.getByTestId('convention')).toContainText('85 kHz');
+  await page.getByRole('button', { name: /^Time response/ }).click();
+  const panel = page.getByTestId('time-panel');
+
+  // a stop time that cannot be read is refused naming the field, and the last good one stays
+  await field(page, 'time-stop', 'soon');
+  await expect(panel.getByRole('alert')).toContainText(/^Stop time: write a time like/);
+  await field(page, 'time-stop', '100u');
+  await expect(panel.getByRole('alert')).toHaveCount(0);
+  await page.getByTestId('time-samples').fill('1000');
+  await panel.getByTestId('time-run').click();
+  await expect(panel.getByTestId('time-status')).toHaveAttribute('data-status', 'done');
+  const traces = await panel.getByTestId('time-trace').count();
+  expect(traces).toBeGreaterThan(0);
+
+  // a run held before its first step can only end by Cancel; the last complete run stays
+  await page.evaluate(() => (window as any).__coilwright.test.holdTimeRuns(true));
+  await panel.getByTestId('time-run').click();
+  await expect(panel.getByTestId('time-status')).toHaveAttribute('data-status', 'running');
+  await panel.getByTestId('time-cancel').click();
+  await expect(panel.getByTestId('time-status')).toHaveAttribute('data-status', 'cancelled');
+  await expect(panel.getByTestId('time-status')).toContainText('Run cancelled; the last complete run stays');
+  await expect(panel.getByTestId('time-trace')).toHaveCount(traces);
+  await page.evaluate(() => (window as any).__coilwright.test.holdTimeRuns(false));
+
+  // the traces as CSV: a row per sample, 0 to 100 µs in steps of 100 ns
+  const [csvDl] = await Promise.all([page.waitForEvent('download'), panel.getByTestId('time-csv').click()]);
+  const rows = parseCsv(readFileSync(await csvDl.path(), 'utf8'));
+  expect(rows[0][0]).toBe('time_s');
+  expect(rows).toHaveLength(1 + 1001);
+  expect(Number(rows[1001][0])).toBeCloseTo(100e-6, 15);
+  expect(rows[0]).toHaveLength(1 + traces);
+  for (const r of rows.slice(1)) for (const v of r) expect(Number.isFinite(Number(v))).toBe(true);
+  await panel.screenshot({ path: info.outputPath('time-panel.png') });
+
+  // the SVG sheet carries the plot and the measurement table
+  await page.getByTestId('share-open').click();
+  await expect(page.getByTestId('share-plots')).toBeChecked();
+  const [svgDl] = await Promise.all([page.waitForEvent('download'), page.getByTestId('share-svg').click()]);
+  const file = info.outputPath('with-time.svg');
+  await svgDl.saveAs(file);
+  const view = await context.newPage();
+  await view.goto(pathToFileURL(file).href);
+  const facts = await view.evaluate(() => ({
+    parserError: !!document.querySelector('parsererror'),
+    plots: document.querySelectorAll('g.plot').length,
+    text: document.documentElement.textContent ?? '',
+  }));
+  expect(facts.parserError).toBe(false);
+  expect(facts.plots).toBeGreaterThanOrEqual(2); // the time plot and the measurements
+  expect(facts.text).toContain('Measurements over 0 s to 100 µs');
+  expect(facts.text).toContain('settling (2 %)');
+  expect(facts.text).not.toMatch(/NaN|Infinity/);
+  await view.screenshot({ path: info.outputPath('with-time.png') });
 });

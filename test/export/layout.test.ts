@@ -41,6 +41,35 @@ describe('overlayLayout', () => {
     expect(layout.arrows.length).toBeGreaterThan(7);
   });
 
+  it('at an instant of a time response each arrow turns with the sign of its current, scaled by the run\'s largest current', () => {
+    const { sheet, circuit, result } = isolation();
+    // the same circuit at two instants: every current +1 A, then every current −0.25 A (real values, im 0)
+    const at = (amps: number) => {
+      const r = structuredClone(result);
+      for (const id in r.elements) {
+        const e = r.elements[id];
+        if ('current' in e) e.current = { re: amps, im: 0 };
+        else e.currents = [{ re: amps, im: 0 }, { re: amps, im: 0 }];
+      }
+      for (const n in r.nodes) r.nodes[n] = { re: -3, im: 0 };
+      return overlayLayout(sheet, circuit, r, { noWireFlows: true, instant: { maxAmps: 2 } });
+    };
+    const pos = at(1);
+    const neg = at(-0.25);
+    const rp = (l: typeof pos) => l.arrows.find((a) => a.element === 'Rp')!;
+    const part = sheet.parts.find((p) => p.ref === 'Rp')!;
+    const [a, b] = pinPositions(part);
+    // positive: along the reference (pin 0 → pin 1); negative: against it (graph-model reference directions)
+    expect(Math.sign(rp(pos).to.x - rp(pos).from.x)).toBe(Math.sign(b.x - a.x));
+    expect(Math.sign(rp(neg).to.x - rp(neg).from.x)).toBe(-Math.sign(b.x - a.x));
+    // widths from the run's largest current, 2 A: 1 + 2.6·√(1/2) and 1 + 2.6·√(0.25/2)
+    expect(rp(pos).width).toBeCloseTo(1 + 2.6 * Math.sqrt(0.5), 12);
+    expect(rp(neg).width).toBeCloseTo(1 + 2.6 * Math.sqrt(0.125), 12);
+    // tags: a current by its size (the arrow gives the sense), a node voltage with its sign
+    expect(neg.tags.some((t) => t.kind === 'current' && t.text === '250 mA')).toBe(true);
+    expect(neg.tags.filter((t) => t.kind === 'voltage').every((t) => t.text.endsWith(': -3 V'))).toBe(true);
+  });
+
   it('phasorText: magnitude with an SI prefix and the angle in degrees', () => {
     expect(phasorText({ re: 0, im: -0.002 }, 'A')).toBe('2 mA ∠-90.0°'); // -j·2 mA lies at -90°
     expect(phasorText({ re: -230, im: 0 }, 'V')).toBe('230 V ∠180.0°'); // one angle range, (-180°, 180°]

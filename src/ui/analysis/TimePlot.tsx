@@ -10,7 +10,7 @@
  * ← → move the cursor a sample (with Shift a fiftieth of the span), + − zoom,
  * Home and End go to the run's ends.
  */
-import { useRef, useState } from 'react';
+import { useMemo, useRef, useState } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { engLabel } from './plotMath';
 import { textWidth, usePaneWidth } from './Plot';
@@ -33,16 +33,16 @@ export function TimePlot({ t, series, span, stopS, cursorS, window, height, onCu
   const volts = series.filter((s) => s.unit === 'V');
   const amps = series.filter((s) => s.unit === 'A');
   const columnsGuess = Math.max(100, W - 120);
-  const envs = series.map((s) => envelope(t, s.y, t0, t1, columnsGuess));
-  const steadyOf = (s: TimeSeries) => {
+  // the envelopes change with the data, the span and the width, not with the cursor: kept across cursor moves
+  const envs = useMemo(() => series.map((s) => envelope(t, s.y, t0, t1, columnsGuess)), [t, series, t0, t1, columnsGuess]);
+  const steadies = useMemo(() => series.map((s) => {
     if (!s.steady) return null;
     const n = Math.min(4 * columnsGuess, 4000);
     const x = new Float64Array(n);
     const y = new Float64Array(n);
     for (let i = 0; i < n; i++) { x[i] = t0 + ((t1 - t0) * i) / (n - 1); y[i] = s.steady(x[i]); }
     return { x, y };
-  };
-  const steadies = series.map(steadyOf);
+  }), [series, t0, t1, columnsGuess]);
   const rangeOf = (list: TimeSeries[]) => {
     let lo = Infinity, hi = -Infinity;
     series.forEach((s, k) => {
@@ -128,7 +128,8 @@ export function TimePlot({ t, series, span, stopS, cursorS, window, height, onCu
     <div className="plot time-plot" data-testid="time-plot" ref={pane}>
       <svg
         width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" tabIndex={0}
-        aria-label="Time response: voltages on the left scale, currents on the right; arrows move the cursor, + and − zoom"
+        aria-label={`Time response: ${series.map((x) => x.label).join(', ')}`}
+        aria-description="Volts on the left scale, amperes on the right. Arrow keys move the cursor, + and − zoom, drag to choose the measuring window"
         data-span={`${t0} ${t1}`}
         onKeyDown={onKey}
         onPointerDown={(e) => {

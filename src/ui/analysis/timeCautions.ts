@@ -65,7 +65,8 @@ export function timeCautions(model: GraphModel, a: TransientAnswer, steady: Solv
       if (!r || !('current' in r) || !s) continue;
       const ssPeak = k * Math.hypot(r.current.re, r.current.im);
       const first = peakOver(a.timesS, s.current[0], () => true);
-      if (!(ssPeak > 0) || Math.abs(first.peak) <= 1.1 * ssPeak) continue;
+      // a notable inrush: half as large again as the steady-state peak (a winding switched in at the voltage zero reaches twice it)
+      if (!(ssPeak > 0) || Math.abs(first.peak) < 1.5 * ssPeak) continue;
       out.push({
         kind: 'inrush', element: w.id, peak: first.peak, atS: first.at,
         head: 'Energising current',

@@ -70,7 +70,9 @@ export function measure(t: ArrayLike<number>, y: ArrayLike<number>, i0: number, 
   const span = t[b] - t[a];
   const mean = span > 0 ? sum / span : y[a];
   const rms = span > 0 ? Math.sqrt(Math.max(0, sum2 / span)) : Math.abs(y[a]);
-  return { peak: peak + 0, timeOfPeak, max, min, peakToPeak: max - min, mean: mean + 0, rms };
+  // a mean within rounding of the window's largest value (a sine over whole periods) reads as 0, not as femtovolts
+  const tiny = 1e-12 * Math.max(Math.abs(max), Math.abs(min));
+  return { peak: peak + 0, timeOfPeak, max, min, peakToPeak: max - min, mean: Math.abs(mean) <= tiny ? 0 : mean + 0, rms };
 }
 
 /**
