@@ -160,6 +160,33 @@ test('the wireless pair over time: a bad stop time refused, Cancel, the traces a
   const traces = await panel.getByTestId('time-trace').count();
   expect(traces).toBeGreaterThan(0);
 
+  // zoom with the keyboard about the cursor, pan, and back to the whole run
+  const svg = panel.getByTestId('time-plot').locator('svg');
+  await svg.focus();
+  await page.keyboard.press('Home');
+  for (let k = 0; k < 10; k++) await page.keyboard.press('Shift+ArrowRight'); // 10 × 100 µs / 50 = 20 µs
+  const spanOf = async () => (await svg.getAttribute('data-span'))!.split(' ').map(Number);
+  await expect.poll(async () => Number(await panel.getByTestId('time-readings').getAttribute('data-cursor'))).toBeCloseTo(20e-6, 12);
+  const cursor = Number(await panel.getByTestId('time-readings').getAttribute('data-cursor'));
+  await page.keyboard.press('+');
+  // half the span, the cursor staying where it is on the axis: from 20 µs − 20/2 µs to 20 µs + 80/2 µs
+  await expect.poll(async () => (await spanOf())[0]).toBeCloseTo(cursor / 2, 12);
+  expect((await spanOf())[1]).toBeCloseTo(cursor + (100e-6 - cursor) / 2, 12);
+  await panel.getByRole('button', { name: 'Pan to later times' }).click();
+  // a quarter of the 50 µs span later
+  await expect.poll(async () => (await spanOf())[0]).toBeCloseTo(cursor / 2 + 12.5e-6, 12);
+  // the window from the keyboard: [ at the cursor starts it, ] later ends it
+  await svg.focus();
+  await page.keyboard.press('[');
+  for (let k = 0; k < 5; k++) await page.keyboard.press('Shift+ArrowRight');
+  await page.keyboard.press(']');
+  await expect.poll(async () => Number(await panel.getByTestId('time-window-text').getAttribute('data-from'))).toBe(cursor);
+  const to = Number(await panel.getByTestId('time-window-text').getAttribute('data-to'));
+  expect(to).toBeGreaterThan(20e-6);
+  await panel.getByTestId('time-whole').click();
+  await expect.poll(async () => (await spanOf())[1]).toBeCloseTo(100e-6, 12);
+  await panel.getByTestId('time-window-all').click();
+
   // a run held before its first step can only end by Cancel; the last complete run stays
   await page.evaluate(() => (window as any).__coilwright.test.holdTimeRuns(true));
   await panel.getByTestId('time-run').click();

@@ -8,7 +8,8 @@
  * Pointer: moving sets the cursor; dragging marks the measuring window; the
  * wheel zooms about the pointer, with Shift it pans. Keys (plot focused):
  * ← → move the cursor a sample (with Shift a fiftieth of the span), + − zoom,
- * Home and End go to the run's ends.
+ * Home and End go to the run's ends, [ and ] start and end the measuring
+ * window at the cursor.
  */
 import { useMemo, useRef, useState } from 'react';
 import { scaleLinear } from 'd3-scale';
@@ -115,6 +116,8 @@ export function TimePlot({ t, series, span, stopS, cursorS, window, height, onCu
       case 'ArrowLeft': stepBy(e.shiftKey ? -fiftieth : -1); break;
       case 'Home': onCursor(t[0]); break;
       case 'End': onCursor(t[n - 1]); break;
+      case '[': if (cursorS !== null) onWindow([cursorS, Math.max(cursorS, window?.[1] ?? stopS)]); break;
+      case ']': if (cursorS !== null) onWindow([Math.min(cursorS, window?.[0] ?? 0), cursorS]); break;
       case '+': case '=': zoom(0.5, cursorS ?? (t0 + t1) / 2); break;
       case '-': zoom(2, cursorS ?? (t0 + t1) / 2); break;
       default: done = false;
@@ -129,7 +132,7 @@ export function TimePlot({ t, series, span, stopS, cursorS, window, height, onCu
       <svg
         width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" tabIndex={0}
         aria-label={`Time response: ${series.map((x) => x.label).join(', ')}`}
-        aria-description="Volts on the left scale, amperes on the right. Arrow keys move the cursor, + and − zoom, drag to choose the measuring window"
+        aria-description="Volts on the left scale, amperes on the right. Arrow keys move the cursor, + and − zoom; drag, or [ and ] at the cursor, to choose the measuring window"
         data-span={`${t0} ${t1}`}
         onKeyDown={onKey}
         onPointerDown={(e) => {
