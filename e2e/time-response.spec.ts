@@ -108,6 +108,9 @@ test('draw a source, a switch and a coupled pair; the time view reads the peak c
   // and its RMS is the phasor's magnitude, peak/√2 (sinusoid, standard result); mean about 0
   const rms = Number(await row.getByTestId('measure-rms').getAttribute('data-value'));
   expect(Math.abs(rms - loadPeak() / Math.SQRT2) / (loadPeak() / Math.SQRT2)).toBeLessThan(5e-3);
+  // after it settles the run matches the phasor solve (an independent engine): its last period within 0.1 % of the steady state's peak
+  const gap = Number(await row.getByTestId('measure-gap').getAttribute('data-value'));
+  expect(gap).toBeLessThan(1e-3);
   await expect(panel).not.toContainText(/NaN|Infinity|null/);
 
   // scrub the cursor with the keyboard: from the end, back a fiftieth of the run (72° of the 1 kHz wave) at a time

@@ -20,7 +20,7 @@ import { csvOf } from './plotMath';
 import { TRACE_COLOURS } from './sweepPlots';
 import { TimePlot, type TimeSeries } from './TimePlot';
 import { timeCautions } from './timeCautions';
-import { lowerIndex, measure, nearestIndex, phasorAt, settlingTime, type Measures } from './timeMath';
+import { lowerIndex, measure, nearestIndex, phasorAt, settlingTime, steadyGap, type Measures } from './timeMath';
 import { measureTableSvg } from './timeExport';
 import { cancelTime, runTime, setTime, steadyPhasor, timeKey, timeLabel, timeUnit, traceValues } from './timeRunner';
 import { useAnalysis } from './useSolved';
@@ -53,7 +53,7 @@ const inModel = (model: GraphModel, q: TimeQuantity) => modelTimeOptions(model).
 
 const timeText = (t: number) => formatSI(t, 's', 4);
 
-export interface MeasureRow { key: string; label: string; unit: string; m: Measures; settle: number | null }
+export interface MeasureRow { key: string; label: string; unit: string; m: Measures; settle: number | null; gap: number | null }
 
 export function TimePanel() {
   const model = useEditorState((s) => s.derived?.model ?? null);
@@ -116,10 +116,13 @@ export function TimePanel() {
     return series.flatMap((s) => {
       const m = measure(t, s.y, i0, i1);
       if (!m) return [];
-      const settle = settlingTime(t, s.y, i0, i1, 0.02, s.steady ? (i) => s.steady!(t[i]) : undefined);
-      return [{ key: s.key, label: s.label, unit: s.unit, m, settle }];
+      const ref = s.steady ? (i: number) => s.steady!(t[i]) : undefined;
+      const settle = settlingTime(t, s.y, i0, i1, 0.02, ref);
+      // the last period of the run against the phasor steady state
+      const gap = ref && freq > 0 ? steadyGap(s.y, ref, lowerIndex(t, stopS - 1 / freq)) : null;
+      return [{ key: s.key, label: s.label, unit: s.unit, m, settle, gap }];
     });
-  }, [answer, series, t, win, stopS]);
+  }, [answer, series, t, win, stopS, freq]);
 
   const cursorIndex = time.cursorS !== null && t.length ? nearestIndex(t, time.cursorS) : -1;
   const cautions = useMemo(() => (answer && time.sheetOf ? timeCautions(time.sheetOf, answer, answer.steady) : []), [answer, time.sheetOf]);
@@ -244,7 +247,7 @@ export function TimePanel() {
           </div>
           <table className="readings time-measures" data-testid="time-measures">
             <thead>
-              <tr><th scope="col">trace</th><th scope="col">peak</th><th scope="col">time of peak</th><th scope="col">peak-to-peak</th><th scope="col">mean</th><th scope="col">RMS</th><th scope="col" title="after the window's start, until it stays within 2 % (of its swing to the final value, or of the steady state's peak about the steady state)">settling time (2 %)</th></tr>
+              <tr><th scope="col">trace</th><th scope="col">peak</th><th scope="col">time of peak</th><th scope="col">peak-to-peak</th><th scope="col">mean</th><th scope="col">RMS</th><th scope="col" title="after the window's start, until it stays within 2 % (of its swing to the final value, or of the steady state's peak about the steady state)">settling time (2 %)</th>{rows.some((r) => r.gap !== null) && <th scope="col" title="the largest departure from the phasor steady state over the run's last period, as a share of the steady state's peak">last period off steady state</th>}</tr>
             </thead>
             <tbody>
               {rows.map((r) => (
@@ -256,6 +259,7 @@ export function TimePanel() {
                   <td data-testid="measure-mean" data-value={r.m.mean}>{formatSI(r.m.mean, r.unit, 4)}</td>
                   <td data-testid="measure-rms" data-value={r.m.rms}>{formatSI(r.m.rms, r.unit, 4)}</td>
                   <td data-testid="measure-settle" data-value={r.settle ?? ''}>{r.settle === null ? 'not settled' : timeText(r.settle)}</td>
+                  {rows.some((x) => x.gap !== null) && <td data-testid="measure-gap" data-value={r.gap ?? ''}>{r.gap === null ? '—' : `${(100 * r.gap).toPrecision(3)} %`}</td>}
                 </tr>
               ))}
             </tbody>

@@ -148,3 +148,18 @@ export function envelope(t: ArrayLike<number>, y: ArrayLike<number>, t0: number,
   }
   return { x: Float64Array.from(xs), y: Float64Array.from(ys) };
 }
+
+/**
+ * How far y is from a reference waveform (the phasor steady state) over the
+ * samples from i0 to the end: the largest |y − ref| as a fraction of the
+ * reference's largest magnitude there (null when the reference is 0 there).
+ */
+export function steadyGap(y: ArrayLike<number>, ref: (i: number) => number, i0: number): number | null {
+  let gap = 0, scale = 0;
+  for (let i = Math.max(0, i0); i < y.length; i++) {
+    const r = ref(i);
+    gap = Math.max(gap, Math.abs(y[i] - r));
+    scale = Math.max(scale, Math.abs(r));
+  }
+  return scale > 0 ? gap / scale : null;
+}

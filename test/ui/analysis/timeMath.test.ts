@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { envelope, lowerIndex, measure, nearestIndex, phasorAt, settlingTime } from '../../../src/ui/analysis/timeMath';
+import { envelope, lowerIndex, measure, nearestIndex, phasorAt, settlingTime, steadyGap } from '../../../src/ui/analysis/timeMath';
 
 const grid = (stop: number, n: number) => Float64Array.from({ length: n + 1 }, (_, i) => (stop * i) / n);
 
@@ -72,6 +72,17 @@ describe('settling time', () => {
     const y = t.map((x) => ss(x) + A * Math.exp(-x / tau));
     const ts = settlingTime(t, y, 0, t.length - 1, 0.02, (i) => ss(t[i]))!;
     expect(ts).toBeCloseTo(tau * Math.log(50), 5);
+  });
+
+  it('the gap to the steady state over the last period: A·e^(−t/τ) against a sine of peak A is e^(−t/τ) there', () => {
+    const A = 2, f = 50, tau = 0.01;
+    const t = grid(0.1, 10000);
+    const ss = (x: number) => A * Math.sin(2 * Math.PI * f * x);
+    const y = t.map((x) => ss(x) + A * Math.exp(-x / tau));
+    const from = lowerIndex(t, 0.1 - 1 / f);
+    // the largest departure is at the period's start, e^(−0.08/0.01) = e^(−8) of the peak (arithmetic)
+    expect(steadyGap(y, (i) => ss(t[i]), from)!).toBeCloseTo(Math.exp(-8), 9);
+    expect(steadyGap(y, () => 0, from)).toBeNull();
   });
 
   it('measured from the window start; 0 when already settled; null when still outside at the end', () => {
