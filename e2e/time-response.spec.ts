@@ -188,6 +188,14 @@ test('the wireless pair over time: a bad stop time refused, Cancel, the traces a
   expect(to).toBeGreaterThan(20e-6);
   await panel.getByTestId('time-whole').click();
   await expect.poll(async () => (await spanOf())[1]).toBeCloseTo(100e-6, 12);
+  // the wheel over the plot zooms in about the pointer (to 0.8 of the span) and leaves the page where it was
+  const pb = (await svg.boundingBox())!;
+  const scrolled = await panel.evaluate((el) => el.closest('.dock-body')?.scrollTop ?? 0);
+  await page.mouse.move(pb.x + pb.width / 2, pb.y + pb.height / 2);
+  await page.mouse.wheel(0, -100);
+  await expect.poll(async () => { const [a, b] = await spanOf(); return b - a; }).toBeCloseTo(80e-6, 12);
+  expect(await panel.evaluate((el) => el.closest('.dock-body')?.scrollTop ?? 0)).toBe(scrolled);
+  await panel.getByTestId('time-whole').click();
   await panel.getByTestId('time-window-all').click();
 
   // a run held before its first step can only end by Cancel; the last complete run stays

@@ -11,7 +11,7 @@
  * Home and End go to the run's ends, [ and ] start and end the measuring
  * window at the cursor.
  */
-import { useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { engLabel } from './plotMath';
 import { textWidth, usePaneWidth } from './Plot';
@@ -77,7 +77,7 @@ export function TimePlot({ t, series, span, stopS, cursorS, window, height, onCu
     }
     return d;
   };
-  const timeAt = (e: React.PointerEvent | React.WheelEvent) => {
+  const timeAt = (e: React.PointerEvent) => {
     const r = (e.currentTarget as SVGSVGElement).getBoundingClientRect();
     const px = ((e.clientX - r.left) * W) / r.width;
     return { px, time: x.invert(Math.max(left, Math.min(W - right, px))) };
@@ -125,11 +125,29 @@ export function TimePlot({ t, series, span, stopS, cursorS, window, height, onCu
     if (done) { e.preventDefault(); e.stopPropagation(); }
     else if (e.key !== 'Escape' && e.key !== 'Tab') e.stopPropagation();
   };
+  // the wheel zooms (Shift: pans) the plot and not the page: a listener that may prevent the scroll
+  const svgRef = useRef<SVGSVGElement>(null);
+  const wheel = useRef<(e: WheelEvent) => void>(() => {});
+  wheel.current = (e: WheelEvent) => {
+    e.preventDefault();
+    const r = svgRef.current!.getBoundingClientRect();
+    const time = x.invert(Math.max(left, Math.min(W - right, ((e.clientX - r.left) * W) / r.width)));
+    if (e.shiftKey || Math.abs(e.deltaX) > Math.abs(e.deltaY)) pan(Math.sign(e.deltaX || e.deltaY) * 0.1);
+    else zoom(e.deltaY < 0 ? 0.8 : 1.25, time);
+  };
+  useEffect(() => {
+    const el = svgRef.current;
+    if (!el) return;
+    const f = (e: WheelEvent) => wheel.current(e);
+    el.addEventListener('wheel', f, { passive: false });
+    return () => el.removeEventListener('wheel', f);
+  }, []);
   const shaded = dragging ?? window;
   const cx = cursorS !== null && cursorS >= t0 && cursorS <= t1 ? x(cursorS) : null;
   return (
     <div className="plot time-plot" data-testid="time-plot" ref={pane}>
       <svg
+        ref={svgRef}
         width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" tabIndex={0}
         aria-label={`Time response: ${series.map((x) => x.label).join(', ')}`}
         aria-description="Volts on the left scale, amperes on the right. Arrow keys move the cursor, + and − zoom; drag, or [ and ] at the cursor, to choose the measuring window"
@@ -150,11 +168,6 @@ export function TimePlot({ t, series, span, stopS, cursorS, window, height, onCu
           if (dragging) onWindow(dragging);
           drag.current = null;
           setDragging(null);
-        }}
-        onWheel={(e) => {
-          const { time } = timeAt(e);
-          if (e.shiftKey || Math.abs(e.deltaX) > Math.abs(e.deltaY)) pan(Math.sign(e.deltaX || e.deltaY) * 0.1);
-          else zoom(e.deltaY < 0 ? 0.8 : 1.25, time);
         }}
       >
         <g className="grid">
