@@ -55,16 +55,15 @@ export function transientRun(raw: GraphModel, spec: TransientSpec, progress: (do
   const timesS = new Float64Array(count);
   const columns = Array.from({ length: width }, () => new Float64Array(count));
   let k = 0;
-  let last = performance.now();
+  // a report at every hundredth of the samples (at most 100 messages, whatever the run's length)
+  const every = Math.max(1, Math.ceil(count / 100));
+  let next = every;
   const warnings = stream.run((t, values) => {
     if (k >= count) return;
     timesS[k] = t;
     for (let q = 0; q < width; q++) columns[q][k] = values[q];
     k++;
-    if ((k & 255) === 0) {
-      const now = performance.now();
-      if (now - last > 50) { last = now; progress(k, count); }
-    }
+    if (k >= next || k === count) { next += every; progress(k, count); }
   });
   const used = <T extends Float64Array>(a: T) => (k === count ? a : (a.subarray(0, k) as T));
   let q = 0;

@@ -15,7 +15,11 @@ describe('the time view\'s run in the analysis worker', () => {
       { id: 'L1', kind: 'inductor', nodes: ['b', 'gnd'], henries: L },
     ] as GraphModel['elements']);
     const reports: number[] = [];
-    const a = transientRun(m, { stopS: 0.01, samples: 100_000 }, (done) => reports.push(done));
+    const a = transientRun(m, { stopS: 0.01, samples: 100_000 }, (done, total) => { expect(total).toBe(100_001); reports.push(done); });
+    // progress at every hundredth of the samples, rising to all of them
+    expect(reports.length).toBe(100);
+    for (let r = 1; r < reports.length; r++) expect(reports[r]).toBeGreaterThan(reports[r - 1]);
+    expect(reports[reports.length - 1]).toBe(100_001);
     expect(a.timesS).toBeInstanceOf(Float64Array);
     expect(a.timesS.length).toBe(100_001);
     const i = a.elements.find((e) => e.id === 'L1')!.current[0];
