@@ -4,7 +4,7 @@
  * and every open question is refused with a message.
  */
 import type { AnalysisReply, AnalysisRequest, CompareAnswer, InspectAnswer, PowerAnswer, SweepAnswer, SweepSpec, TAnswer, TransferAnswer, TransientAnswer, TransientSpec } from '../worker/protocol';
-import type { GraphModel, SolveResult } from '../model/graph';
+import type { GraphModel, RefusalCulprit, SolveResult } from '../model/graph';
 
 export interface AnalysisWorkerLike {
   postMessage(msg: AnalysisRequest): void;
@@ -14,6 +14,11 @@ export interface AnalysisWorkerLike {
 }
 
 interface Open { resolve: (v: unknown) => void; reject: (e: Error) => void; progress?: (done: number, total: number) => void }
+
+/** A question the worker refused, with what the refusal names (elements, couplings, nodes). */
+export class RefusedError extends Error {
+  constructor(message: string, readonly culprits: RefusalCulprit[]) { super(message); }
+}
 
 export class CancelledError extends Error {
   constructor() { super('cancelled'); }
@@ -51,7 +56,7 @@ export class AnalysisClient {
     this.open.delete(r.id);
     if (r.type === 'done') o.resolve(r.value);
     else if (r.type === 'cancelled') o.reject(new CancelledError());
-    else o.reject(new Error(r.message));
+    else o.reject(r.culprits?.length ? new RefusedError(r.message, r.culprits) : new Error(r.message));
   }
 
   private ask<T>(req: Ask<AnalysisRequest>, progress?: Open['progress']): { id: number; promise: Promise<T> } {

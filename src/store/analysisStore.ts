@@ -1,7 +1,7 @@
 /** State of the analysis views (outside the undoable sheet): which view is open, T-equivalents drawn, the last sweep. */
 import { createStore } from 'zustand/vanilla';
 import type { SweepAnswer, SweepQuantity, TransientAnswer } from '../worker/protocol';
-import type { GraphModel, SolveResult } from '../model/graph';
+import type { GraphModel, RefusalCulprit, SolveResult } from '../model/graph';
 import type { TRecord } from '../model/tEquivalentSheet';
 import type { ValueTarget } from '../model/valueTarget';
 
@@ -26,6 +26,8 @@ export interface TimeState {
   /** the sheet the answer was run on (its derived circuit), so that the sheet overlay matches it */
   sheetOf: GraphModel | null;
   message: string;
+  /** what a refusal of the run names */
+  culprits: RefusalCulprit[];
   /** the cursor's time (s), or null */
   cursorS: number | null;
   /** the measuring window (s) */
@@ -87,7 +89,7 @@ export function createAnalysisStore() {
     substitutions: [],
     sweep: { settings: DEFAULT_SWEEP, status: 'idle', progress: 0, answer: null, shown: [], message: '', slider: null },
     compareWinding: null,
-    time: { settings: DEFAULT_TIME, status: 'idle', progress: 0, answer: null, sheetOf: null, message: '', cursorS: null, window: null, span: null },
+    time: { settings: DEFAULT_TIME, status: 'idle', progress: 0, answer: null, sheetOf: null, message: '', culprits: [], cursorS: null, window: null, span: null },
   }));
 }
 

@@ -4,6 +4,7 @@
  * sweep runs in chunks; between chunks it reports progress and yields, so a
  * cancel message can arrive and stop it.
  */
+import type { RefusalCulprit } from '../model/graph';
 import type { AnalysisReply, AnalysisRequest } from './protocol';
 import { transferables, transientRun } from './transientTask';
 import { chunkRanges, compare, inspect, power, prepareSweep, tCheck, transfer } from './analysisTasks';
@@ -71,6 +72,8 @@ self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {
       case 'transfer': return post({ id: req.id, type: 'done', value: transfer(req.model, req.input, req.output) });
     }
   } catch (e) {
-    post({ id: req.id, type: 'failed', message: (e instanceof Error ? e.message : String(e)).split('\n')[0] });
+    // a refusal names its culprits too, for the editor to point at
+    const culprits = e instanceof Error && Array.isArray((e as { culprits?: unknown }).culprits) ? (e as unknown as { culprits: RefusalCulprit[] }).culprits : undefined;
+    post({ id: req.id, type: 'failed', message: (e instanceof Error ? e.message : String(e)).split('\n')[0], ...(culprits?.length ? { culprits } : {}) });
   }
 };

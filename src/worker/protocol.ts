@@ -5,7 +5,7 @@
  * chunks that report progress and can be cancelled. The answers are built
  * from the solver's own types; the editor imports these types only.
  */
-import type { ComplexJson, GraphModel, SolveResult, TransferResult } from '../model/graph';
+import type { ComplexJson, GraphModel, RefusalCulprit, SolveResult, TransferResult } from '../model/graph';
 import type { Change, PairState, PowerSummary, TEquivalent } from '../solver';
 import type { ValueTarget } from '../model/valueTarget';
 
@@ -127,6 +127,6 @@ export type AnalysisRequest =
 
 export type AnalysisReply =
   | { id: number; type: 'done'; value: unknown }
-  | { id: number; type: 'failed'; message: string }
+  | { id: number; type: 'failed'; message: string; culprits?: RefusalCulprit[] }
   | { id: number; type: 'progress'; done: number; total: number }
   | { id: number; type: 'cancelled' };

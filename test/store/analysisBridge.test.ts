@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { AnalysisReply, AnalysisRequest } from '../../src/worker/protocol';
-import { AnalysisClient, CancelledError, type AnalysisWorkerLike } from '../../src/store/analysisBridge';
+import { AnalysisClient, CancelledError, RefusedError, type AnalysisWorkerLike } from '../../src/store/analysisBridge';
 import { chunkRanges, prepareSweep } from '../../src/worker/analysisTasks';
 import { model } from '../helpers';
 
@@ -15,7 +15,8 @@ class FakeWorker implements AnalysisWorkerLike {
     if (msg.kind === 'cancel') this.cancelled.add(msg.target);
   }
   reply(r: AnalysisReply) { this.onmessage?.({ data: r } as MessageEvent<AnalysisReply>); }
-  terminate() {}
+  terminated = 0;
+  terminate() { this.terminated++; }
 }
 
 const rc = model(1000, [
@@ -64,5 +65,24 @@ describe('analysis client', () => {
     const b = client.power(rc, {} as never);
     w.onerror?.({} as ErrorEvent);
     await expect(b).rejects.toThrow(/stopped unexpectedly/);
+  });
+
+  it('a time response: Cancel stops its worker and only it; a refusal keeps what it names', async () => {
+    const made: FakeWorker[] = [];
+    const client = new AnalysisClient(() => { const w = new FakeWorker(); made.push(w); return w; });
+    const job = client.transient(rc, { stopS: 1e-3, samples: 100 });
+    job.cancel();
+    await expect(job.promise).rejects.toBeInstanceOf(CancelledError);
+    // a run cannot read a cancel message while it steps: the worker itself is stopped
+    expect(made[0].terminated).toBe(1);
+    const next = client.transient(rc, { stopS: 1e-3, samples: 100 });
+    // a fresh worker takes the next run
+    expect(made).toHaveLength(2);
+    const req = made[1].sent[0];
+    made[1].reply({ id: req.id, type: 'failed', message: 'element "R1": something to change', culprits: [{ kind: 'element', id: 'R1' }] });
+    const err = await next.promise.catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(RefusedError);
+    expect((err as RefusedError).culprits).toEqual([{ kind: 'element', id: 'R1' }]);
+    expect((err as RefusedError).message).toBe('element "R1": something to change');
   });
 });

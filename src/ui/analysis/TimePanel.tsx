@@ -12,7 +12,7 @@ import type { GraphModel } from '../../model/graph';
 import { formatSI, parseSimple } from '../../model/quantity';
 import { csvComment } from '../../export/csvText';
 import { analysisStore, type TimeQuantity, type TimeSettings } from '../../store/analysisStore';
-import { useEditorState } from '../editorContext';
+import { useEditor, useEditorState } from '../editorContext';
 import { download } from '../files';
 import { provideAnalysisOutputs } from '../share/analysisHook';
 import { plotsOnScreen } from '../share/analysisScreen';
@@ -57,6 +57,8 @@ export interface MeasureRow { key: string; label: string; unit: string; m: Measu
 
 export function TimePanel() {
   const model = useEditorState((s) => s.derived?.model ?? null);
+  const { store } = useEditor();
+  const derived = useEditorState((s) => s.derived);
   const time = useAnalysis((s) => s.time);
   const { settings, answer } = time;
   const [stopText, setStopText] = useState(timeText(settings.stopS));
@@ -143,6 +145,10 @@ export function TimePanel() {
     download('time-response.csv', `${csvComment('Coilwright time response; instantaneous values')}\n${csvOf(header, out)}`, 'text/csv');
   };
 
+  // the part a refusal names, to select on the sheet
+  const named = time.culprits.find((c) => c.kind === 'element' && c.id);
+  const culpritPart = named?.id && derived ? derived.partOfElement.get(named.id) : undefined;
+
   if (!model) return <p className="muted">Nothing to run yet — place a source and some parts.</p>;
   const running = time.status === 'running';
   const stale = answer && time.sheetOf !== model;
@@ -187,7 +193,11 @@ export function TimePanel() {
         </span>
         <button type="button" className="cmd" data-testid="time-csv" disabled={!answer || !series.length} title="The chosen traces at every sample, as CSV" onClick={exportCsv}>CSV</button>
       </div>
-      {time.status === 'failed' && <p className="field-error" role="alert" data-testid="time-error">Not run: {time.message}</p>}
+      {time.status === 'failed' && (
+        <p className="field-error" role="alert" data-testid="time-error">Not run: {time.message}
+          {culpritPart && <> <button type="button" className="cmd" data-testid="time-error-show" title="Select the part this is about" onClick={() => store.setState({ selection: [culpritPart] })}>Show</button></>}
+        </p>
+      )}
       {stale && <p className="muted" data-testid="time-stale">The sheet has changed since this run: run again to see it (the sheet shows its phasors meanwhile).</p>}
       {answer && answer.warnings.length > 0 && (
         <ul className="time-warnings" data-testid="time-warnings">{answer.warnings.map((w, i) => <li key={i} className="caution">{w}</li>)}</ul>

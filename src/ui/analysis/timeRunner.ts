@@ -7,7 +7,7 @@
 import type { ComplexJson, ElementResult, GraphModel, SolveResult } from '../../model/graph';
 import { RESULT_SCHEMA } from '../../model/graph';
 import { nameTable } from '../../model/names';
-import { CancelledError } from '../../store/analysisBridge';
+import { CancelledError, RefusedError } from '../../store/analysisBridge';
 import { analysisStore, type TimeQuantity, type TimeState } from '../../store/analysisStore';
 import type { TransientAnswer } from '../../worker/protocol';
 import { transientClient } from './client';
@@ -22,7 +22,7 @@ export const setTime = (patch: Partial<TimeState>) => analysisStore.setState({ t
 export function runTime(model: GraphModel): void {
   const { settings } = analysisStore.getState().time;
   running?.cancel();
-  setTime({ status: 'running', progress: 0, message: '' });
+  setTime({ status: 'running', progress: 0, message: '', culprits: [] });
   const job = transientClient().transient(model, { stopS: settings.stopS, samples: settings.samples, start: settings.start, hold: timeTestHold.on }, (done, total) => {
     if (running === job) setTime({ progress: done / total });
   });
@@ -46,7 +46,7 @@ export function runTime(model: GraphModel): void {
       if (running !== job) return;
       running = null;
       if (e instanceof CancelledError) setTime({ status: 'cancelled', message: 'Run cancelled; the last complete run stays' });
-      else setTime({ status: 'failed', message: e.message });
+      else setTime({ status: 'failed', message: e.message, culprits: e instanceof RefusedError ? e.culprits : [] });
     },
   );
 }
