@@ -93,6 +93,7 @@ test('draw a source, a switch and a coupled pair; the time view reads the peak c
   // the measuring window dragged on the plot over its later part, where the closing transient has died away
   // (its slower time constant is about 0.36 ms: the roots of (R1 + sL1)(R2 + sL2) − s²M², by hand)
   const plot = panel.getByTestId('time-plot').locator('svg');
+  await plot.scrollIntoViewIfNeeded();
   const box = (await plot.boundingBox())!;
   await page.mouse.move(box.x + box.width * 0.62, box.y + box.height / 2);
   await page.mouse.down();
@@ -189,6 +190,7 @@ test('the wireless pair over time: a bad stop time refused, Cancel, the traces a
   await panel.getByTestId('time-whole').click();
   await expect.poll(async () => (await spanOf())[1]).toBeCloseTo(100e-6, 12);
   // the wheel over the plot zooms in about the pointer (to 0.8 of the span) and leaves the page where it was
+  await svg.scrollIntoViewIfNeeded();
   const pb = (await svg.boundingBox())!;
   const scrolled = await panel.evaluate((el) => el.closest('.dock-body')?.scrollTop ?? 0);
   await page.mouse.move(pb.x + pb.width / 2, pb.y + pb.height / 2);

@@ -93,6 +93,7 @@ describe('the time view\'s run in the analysis worker', () => {
     expect(Math.abs(c.peak) / ssPeak).toBeCloseTo(2, 1);
     // at half a period (10 ms)
     expect(c.atS).toBeCloseTo(0.01, 3);
+    expect(c.hazard).toBe(true);
     expect(c.text).toMatch(/local codes and licensed practice/);
   });
 

@@ -202,11 +202,13 @@ export function TimePanel() {
       {answer && answer.warnings.length > 0 && (
         <ul className="time-warnings" data-testid="time-warnings">{answer.warnings.map((w, i) => <li key={i} className="caution">{w}</li>)}</ul>
       )}
-      {cautions.map((c, i) => (
-        <div key={i} className="notice notice-hazard full" role="alert" data-testid={`time-caution-${c.kind}`} data-peak={c.peak} data-at={c.atS}>
-          <span className="hazard-mark" aria-hidden="true">⚠</span> <strong>{c.head}:</strong> <span className="notice-text">{c.text}</span>
-        </div>
-      ))}
+      {cautions.map((c, i) => (c.hazard
+        ? (
+          <div key={i} className="notice notice-hazard full" role="alert" data-testid={`time-caution-${c.kind}`} data-peak={c.peak} data-at={c.atS}>
+            <span className="hazard-mark" aria-hidden="true">⚠</span> <strong>{c.head}:</strong> <span className="notice-text">{c.text}</span>
+          </div>
+        )
+        : <p key={i} className="muted" data-testid={`time-reading-${c.kind}`} data-peak={c.peak} data-at={c.atS}><strong>{c.head}:</strong> {c.text}</p>))}
       {answer && series.length > 0 && (
         <>
           <div className="row-controls">

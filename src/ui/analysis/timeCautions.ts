@@ -2,7 +2,7 @@
  * Hazard readouts of a time response (field notes, "Cautions"): the peak
  * voltage a coupled winding and its switch reach while a switch in the
  * winding's circuit is open (an opened current-transformer burden, common
- * practice: never open a CT secondary under load), and the first peak of a
+ * practice: never open a CT secondary under load), and the largest peak of a
  * winding's energising current against its steady-state peak (inrush).
  */
 import type { GraphModel, SolveResult } from '../../model/graph';
@@ -10,7 +10,8 @@ import { ELV_AC_RMS, galvanicSections } from '../../model/cautions';
 import { formatSI } from '../../model/quantity';
 import type { TransientAnswer } from '../../worker/protocol';
 
-export interface TimeCaution { kind: 'open-burden' | 'inrush'; head: string; text: string; element: string; peak: number; atS: number }
+/** `hazard`: shown as a caution; else a plain readout (an energising peak within 1.5 times the steady state's) */
+export interface TimeCaution { kind: 'open-burden' | 'inrush'; hazard: boolean; head: string; text: string; element: string; peak: number; atS: number }
 
 /** Each switch's state at sample times: closed at t when `closed` flipped by the toggles at or before t. */
 export function closedAt(closed: boolean, togglesS: readonly number[], t: number): boolean {
@@ -50,7 +51,7 @@ export function timeCautions(model: GraphModel, a: TransientAnswer, steady: Solv
       if (Math.abs(across.peak) <= limit && Math.abs(winding.peak) <= limit) continue;
       const ratio = Math.abs(closedPeak.peak) > 0 ? ` (${(Math.abs(winding.peak) / Math.abs(closedPeak.peak)).toPrecision(3)}× its peak while ${sw.id} is closed)` : '';
       out.push({
-        kind: 'open-burden', element: sw.id, peak: across.peak, atS: across.at,
+        kind: 'open-burden', hazard: true, element: sw.id, peak: across.peak, atS: across.at,
         head: 'Open winding circuit',
         text: `While ${sw.id} is open, ${sw.id} sees a peak of ${formatSI(Math.abs(across.peak), 'V', 4)} at ${formatSI(across.at, 's', 4)} and winding ${w.id} ${formatSI(Math.abs(winding.peak), 'V', 4)} at ${formatSI(winding.at, 's', 4)}${ratio}, above extra-low voltage. An opened current-transformer secondary develops dangerous voltage: keep the burden connected or the winding shorted. This model is linear: a real core saturates and the spike is sharper. ${CODES}`,
       });
@@ -64,14 +65,14 @@ export function timeCautions(model: GraphModel, a: TransientAnswer, steady: Solv
       const s = series(w.id);
       if (!r || !('current' in r) || !s) continue;
       const ssPeak = k * Math.hypot(r.current.re, r.current.im);
-      const first = peakOver(a.timesS, s.current[0], () => true);
+      const largest = peakOver(a.timesS, s.current[0], () => true);
+      if (!(ssPeak > 0) || !(Math.abs(largest.peak) > 0)) continue;
       // a notable inrush: half as large again as the steady-state peak (a winding switched in at the voltage zero reaches twice it)
-      if (!(ssPeak > 0) || Math.abs(first.peak) < 1.5 * ssPeak) continue;
-      out.push({
-        kind: 'inrush', element: w.id, peak: first.peak, atS: first.at,
-        head: 'Energising current',
-        text: `Winding ${w.id} draws a first peak of ${formatSI(Math.abs(first.peak), 'A', 4)} at ${formatSI(first.at, 's', 4)}, ${(Math.abs(first.peak) / ssPeak).toPrecision(3)}× its steady-state peak of ${formatSI(ssPeak, 'A', 4)}. This model is linear: a real core saturates and its inrush can be many times larger. Protection must ride through it: rate fuses and breakers following local codes and licensed practice.`,
-      });
+      const ratio = Math.abs(largest.peak) / ssPeak;
+      const reading = `Winding ${w.id} peaks at ${formatSI(Math.abs(largest.peak), 'A', 4)} at ${formatSI(largest.at, 's', 4)}, ${ratio.toPrecision(3)}× its steady-state peak of ${formatSI(ssPeak, 'A', 4)}.`;
+      out.push(ratio >= 1.5
+        ? { kind: 'inrush', hazard: true, element: w.id, peak: largest.peak, atS: largest.at, head: 'Energising current', text: `${reading} This model is linear: a real core saturates and its inrush can be many times larger. Protection must ride through it: rate fuses and breakers following local codes and licensed practice.` }
+        : { kind: 'inrush', hazard: false, element: w.id, peak: largest.peak, atS: largest.at, head: 'Energising current', text: reading });
     }
   }
   return out;
