@@ -16,13 +16,20 @@ import { isDissipative, sourceKindOf } from '../../model/elementFacts';
 import { DEFAULT_HARMONIC_COUNT, notPeriodic, periodicFrequency, rmsAndThd, waveformHarmonic, waveformMean } from '../../model/fourier';
 import { ModelRefusal } from '../errors';
 import { SolverSession, type SourceValues } from './session';
+import { defOf } from '../elements/registry';
 import { ProbeError } from './sweep';
 
 /** The most orders a run takes (a fundamental at most this far below the highest source frequency, too). */
 export const MAX_HARMONIC_COUNT = 100_000;
 
 /** Two frequencies are whole multiples of a fundamental when they agree with it to this relative amount. */
-const RATIO_TOLERANCE = 1e-9;
+const RATIO_TOLERANCE = 1e-12;
+/**
+ * The fundamental lies at most this many times below the lowest source frequency (60 Hz beside 50 Hz: 5;
+ * 85 kHz beside 50 Hz: 1). Beyond it nearly any ratio would pass as one of whole numbers, and the
+ * "fundamental" would be an artefact of the digits typed.
+ */
+const MAX_DIVISOR = 1000;
 
 export interface HarmonicOptions {
   /** the highest order solved (default DEFAULT_HARMONIC_COUNT) */
@@ -42,8 +49,11 @@ export interface HarmonicPlan {
 }
 
 
-/** A source's spectrum in peak phasors over its own frequency: DC and the lines of each order of that frequency. */
-interface Spectrum { id: string; index: number; frequencyHz: number | null; dc: number; line: (k: number) => ComplexJson }
+/**
+ * A source's spectrum over its own frequency: DC and the line of each order of that frequency, as peak
+ * phasors (a waveform's) or in the model's amplitudes already (`inModelUnits`: a source that follows its phasor).
+ */
+interface Spectrum { id: string; index: number; frequencyHz: number | null; dc: number; line: (k: number) => ComplexJson; inModelUnits?: boolean }
 
 function spectrumOf(model: GraphModel, index: number): Spectrum {
   const el = model.elements[index] as { id: string; kind: string; magnitude: number; phaseDeg: number; waveform?: Waveform };
@@ -62,10 +72,9 @@ function spectrumOf(model: GraphModel, index: number): Spectrum {
   }
   const ph = (el.phaseDeg * Math.PI) / 180;
   if (model.frequencyHz === 0) return { id: el.id, index, frequencyHz: null, dc: el.magnitude * Math.cos(ph), line: () => ({ re: 0, im: 0 }) };
-  // a phasor in the model's amplitudes, as a peak phasor
-  const peak = model.amplitudes === 'rms' ? Math.SQRT2 * el.magnitude : el.magnitude;
-  const line = { re: peak * Math.cos(ph), im: peak * Math.sin(ph) };
-  return { id: el.id, index, frequencyHz: el.magnitude === 0 ? null : model.frequencyHz, dc: 0, line: (k) => (k === 1 ? line : { re: 0, im: 0 }) };
+  // the source's own phasor, in the model's amplitudes (its solve result, exactly)
+  const own = defOf(el as never).phasor!(el as never);
+  return { id: el.id, index, frequencyHz: el.magnitude === 0 ? null : model.frequencyHz, dc: 0, line: (k) => (k === 1 ? own : { re: 0, im: 0 }), inModelUnits: true };
 }
 
 /** p/q ≈ r (continued fractions), the first with |r − p/q| ≤ tolerance·r and q ≤ maxQ; null when there is none. */
@@ -106,19 +115,21 @@ export function harmonicPlan(model: GraphModel, count = DEFAULT_HARMONIC_COUNT):
   }
   // the common fundamental, source by source: f0 ← f0/q where f/f0 = p/q in lowest terms
   let f0 = periodic[0].frequencyHz!;
-  let highest = 1;
+  let lowest = f0;
+  let highest = f0;
   for (const s of periodic.slice(1)) {
     const f = s.frequencyHz!;
-    const r = ratioOf(f / f0, MAX_HARMONIC_COUNT);
-    const order = r ? Math.max(highest * r.q, r.p) : Infinity;
-    if (!r || order > MAX_HARMONIC_COUNT) {
+    const r = ratioOf(f / f0, MAX_DIVISOR);
+    const next = r ? f0 / r.q : 0;
+    lowest = Math.min(lowest, f);
+    highest = Math.max(highest, f);
+    if (!r || lowest / next > MAX_DIVISOR + 0.5 || highest / next > MAX_HARMONIC_COUNT + 0.5) {
       throw new ModelRefusal(
-        `element "${s.id}": its ${f} Hz shares no common fundamental with "${periodic[0].id}" at ${periodic[0].frequencyHz} Hz (their ratio ${Number((f / periodic[0].frequencyHz!).toPrecision(10))} is no ratio of whole numbers that puts both within ${MAX_HARMONIC_COUNT} harmonics of one fundamental); make every source frequency a whole multiple of one fundamental`,
+        `element "${s.id}": its ${f} Hz shares no common fundamental with "${periodic[0].id}" at ${periodic[0].frequencyHz} Hz (their ratio ${Number((f / periodic[0].frequencyHz!).toPrecision(10))} is no ratio of whole numbers m/n with n up to ${MAX_DIVISOR}); make every source frequency a whole multiple of one fundamental`,
         [{ kind: 'element', id: s.id }],
       );
     }
-    f0 /= r.q;
-    highest = order;
+    f0 = next;
   }
   const orderOf = (f: number) => Math.round(f / f0);
   for (const s of periodic) {
@@ -142,9 +153,10 @@ export function harmonicPlan(model: GraphModel, count = DEFAULT_HARMONIC_COUNT):
     put(0, s.index, s.dc, 0);
     if (s.frequencyHz === null) continue;
     const m = orderOf(s.frequencyHz);
+    const scale = s.inModelUnits ? 1 : toModel;
     for (let k = 1; k * m <= count; k++) {
       const a = s.line(k);
-      put(k * m, s.index, toModel * a.re, toModel * a.im);
+      put(k * m, s.index, scale * a.re, scale * a.im);
     }
   }
   const orders = [...lines.keys()].sort((a, b) => a - b);
