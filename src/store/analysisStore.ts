@@ -5,7 +5,7 @@ import type { SolveResult } from '../model/graph';
 import type { TRecord } from '../model/tEquivalentSheet';
 import type { ValueTarget } from '../model/valueTarget';
 
-export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain';
+export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain' | 'harmonic';
 
 export interface SweepTrace { label: string; quantity: SweepQuantity; unit: string }
 

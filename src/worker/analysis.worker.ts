@@ -5,7 +5,7 @@
  * cancel message can arrive and stop it.
  */
 import type { AnalysisReply, AnalysisRequest } from './protocol';
-import { chunkRanges, compare, inspect, power, prepareSweep, tCheck, transfer } from './analysisTasks';
+import { chunkRanges, compare, harmonics, inspect, power, prepareSweep, tCheck, transfer } from './analysisTasks';
 
 declare const self: DedicatedWorkerGlobalScope;
 
@@ -53,6 +53,7 @@ self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {
       case 'power': return post({ id: req.id, type: 'done', value: power(req.model, req.result) });
       case 'sweep': return await sweep(req);
       case 'transfer': return post({ id: req.id, type: 'done', value: transfer(req.model, req.input, req.output) });
+      case 'harmonics': return post({ id: req.id, type: 'done', value: harmonics(req.model, req.count) });
     }
   } catch (e) {
     post({ id: req.id, type: 'failed', message: (e instanceof Error ? e.message : String(e)).split('\n')[0] });

@@ -8,6 +8,7 @@
 import { useRef, useState } from 'react';
 import { CommandButton } from '../CommandButton';
 import { ComparePanel } from './ComparePanel';
+import { HarmonicPanel } from './HarmonicPanel';
 import { PhasorPanel } from './PhasorPanel';
 import { PowerPanel } from './PowerPanel';
 import { SPlanePanel } from './SPlanePanel';
@@ -17,7 +18,7 @@ import { useAnalysis } from './useSolved';
 import { openView } from '../../store/analysisActions';
 import './analysis.css';
 
-const TITLES = { compare: 'Dot comparison', tequiv: 'T-equivalent', sweep: 'Sweep', phasor: 'Phasors and waveforms', power: 'Power balance', sdomain: 'Poles and zeros (s-domain)' } as const;
+const TITLES = { compare: 'Dot comparison', tequiv: 'T-equivalent', sweep: 'Sweep', phasor: 'Phasors and waveforms', power: 'Power balance', sdomain: 'Poles and zeros (s-domain)', harmonic: 'Harmonics (periodic steady state)' } as const;
 
 const DOCK_KEY = 'coilwright:dock-height';
 const readHeight = () => {
@@ -39,6 +40,7 @@ export function AnalysisTabs() {
       <CommandButton id="analysis-phasors" pressed={view === 'phasor'} />
       <CommandButton id="analysis-power" pressed={view === 'power'} />
       <CommandButton id="analysis-sdomain" pressed={view === 'sdomain'} />
+      <CommandButton id="analysis-harmonics" pressed={view === 'harmonic'} />
     </div>
   );
 }
@@ -82,6 +84,7 @@ export function AnalysisDock() {
         {view === 'phasor' && <PhasorPanel />}
         {view === 'power' && <PowerPanel />}
         {view === 'sdomain' && <SPlanePanel />}
+        {view === 'harmonic' && <HarmonicPanel />}
       </div>
     </section>
   );
