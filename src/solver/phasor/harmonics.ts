@@ -201,51 +201,68 @@ export function harmonicSteadyState(model: GraphModel, options: HarmonicOptions 
     keepElements = keepElements.filter((id) => wanted.has(id));
   }
   const keepSet = new Set(keepElements);
-  const nodeP = new Map(keepNodes.map((n) => [n, [] as ComplexJson[]]));
-  const elP = new Map<string, { v: ComplexJson[][]; i: ComplexJson[][]; power: PowerJson[] }>();
-  for (const id of keepElements) elP.set(id, { v: [], i: [], power: [] });
-  const delivered: number[] = [];
-  const dissipated: number[] = [];
+  const nodeIndex = keepNodes.map((n) => session.topo.nodeIndex.get(n)!);
+  const nodeP = keepNodes.map(() => [] as ComplexJson[]);
+  // the elements read at each order: the kept ones, and the sources and lossy parts for the balance
   const lossy = model.elements.map((e) => isDissipative(e));
   const source = model.elements.map((e) => sourceKindOf(e) !== undefined);
+  const read: number[] = [];
+  model.elements.forEach((e, i) => {
+    if (keepSet.has(e.id) || lossy[i] || source[i]) read.push(i);
+  });
+  const ports = model.elements.map((e) => defOf(e).ports.length);
+  const elP = new Map<number, { v: ComplexJson[][]; i: ComplexJson[][]; power: PowerJson[] }>();
+  model.elements.forEach((e, i) => {
+    if (keepSet.has(e.id)) elP.set(i, { v: Array.from({ length: ports[i] }, () => []), i: Array.from({ length: ports[i] }, () => []), power: [] });
+  });
+  const delivered: number[] = [];
+  const dissipated: number[] = [];
+  const port = { vr: 0, vi: 0, ir: 0, ii: 0 };
   plan.orders.forEach((order, k) => {
     const f = order * plan.fundamentalHz;
-    let res;
+    let sol;
     try {
-      res = session.toResult(session.solveRaw(f, plan.values[k]));
+      sol = session.solveRaw(f, plan.values[k]);
     } catch (e) {
       if (e instanceof ModelRefusal) throw new ModelRefusal(`${e.message} (harmonic ${order} of ${plan.fundamentalHz} Hz)`, e.culprits);
       throw e;
     }
-    for (const [name, list] of nodeP) list.push(res.nodes[name]);
+    nodeIndex.forEach((v, q) => nodeP[q].push({ re: z(sol.vRe[v]), im: z(sol.vIm[v]) }));
+    // S = V·conj(I) at DC and for RMS phasors, ½·V·conj(I) for peak ones (graph-model.md)
+    const scale = order === 0 || model.amplitudes === 'rms' ? 1 : 0.5;
     let d = 0;
     let l = 0;
-    model.elements.forEach((el, i) => {
-      const r = res.elements[el.id];
-      if (source[i]) d -= r.power.watts;
-      if (lossy[i]) l += r.power.watts;
-      if (!keepSet.has(el.id)) return;
-      const out = elP.get(el.id)!;
-      if ('voltages' in r) {
-        for (let s = 0; s < 2; s++) {
-          (out.v[s] ??= []).push(r.voltages[s]);
-          (out.i[s] ??= []).push(r.currents[s]);
+    for (const i of read) {
+      const out = elP.get(i);
+      let watts = 0;
+      let vars = 0;
+      for (let p = 0; p < ports[i]; p++) {
+        session.readPort(sol, i, p, port);
+        watts += scale * (port.vr * port.ir + port.vi * port.ii);
+        vars += scale * (port.vi * port.ir - port.vr * port.ii);
+        if (out) {
+          out.v[p].push({ re: z(port.vr), im: z(port.vi) });
+          out.i[p].push({ re: z(port.ir), im: z(port.ii) });
         }
-      } else {
-        (out.v[0] ??= []).push(r.voltage);
-        (out.i[0] ??= []).push(r.current);
       }
-      out.power.push(r.power);
-    });
+      if (!Number.isFinite(watts) || !Number.isFinite(vars)) {
+        const id = model.elements[i].id;
+        throw new ModelRefusal(`element "${id}": its power overflows at harmonic ${order} of ${plan.fundamentalHz} Hz (more than 1.8e308 W or var); bring the circuit's voltages, currents and values nearer to everyday sizes`, [{ kind: 'element', id }]);
+      }
+      if (source[i]) d -= watts;
+      if (lossy[i]) l += watts;
+      out?.power.push({ watts: z(watts), vars: z(vars) });
+    }
     delivered.push(z(d));
     dissipated.push(z(l));
   });
   const { orders } = plan;
   const amp = model.amplitudes;
   const nodes = nameTable<HarmonicSeries>();
-  for (const [name, list] of nodeP) nodes[name] = series(list, orders, amp);
+  keepNodes.forEach((name, q) => (nodes[name] = series(nodeP[q], orders, amp)));
   const elements = nameTable<HarmonicResult['elements'][string]>();
-  for (const [id, p] of elP) {
+  for (const [i, p] of elP) {
+    const id = model.elements[i].id;
     const watts = z(p.power.reduce((s, x) => s + x.watts, 0));
     elements[id] = p.v.length === 2
       ? { voltages: [series(p.v[0], orders, amp), series(p.v[1], orders, amp)], currents: [series(p.i[0], orders, amp), series(p.i[1], orders, amp)], power: p.power, watts }

@@ -272,6 +272,14 @@ export class SolverSession {
     return column >= 0 && (!(largest <= 1e150) || largest > 1e30 * smallest) ? { column, size: largest } : null;
   }
 
+  /**
+   * Port p of element i in a raw solution: its voltage and current (reference directions of graph-model.md),
+   * into `out`, without building the result JSON (for analyses that read many solutions).
+   */
+  readPort(sol: RawSolution, i: number, p: number, out: { vr: number; vi: number; ir: number; ii: number }): void {
+    readPort(this, sol, i, p, out);
+  }
+
   /** Builds the contract's result JSON from a raw solution. */
   toResult(sol: RawSolution, only?: { nodes?: Set<string>; elements?: Set<string> }): SolveResult {
     const { model, topo } = this;
