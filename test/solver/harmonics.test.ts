@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { harmonicPlan, harmonicSteadyState, ModelRefusal, parseGraphModel, transientGraph } from '../../src/solver';
+import { harmonicPlan, harmonicSteadyState, ModelRefusal, parseGraphModel, solveGraph, transientGraph } from '../../src/solver';
 import { rebuildPeriod } from '../../src/model/fourier';
 import type { GraphModel, HarmonicSeries } from '../../src/model/graph';
 
@@ -88,6 +88,21 @@ describe('harmonic steady state', () => {
     // the sample times of the last period, t = (periods − 1)·T + k·T/64, fall on the rebuilt grid: one whole period later
     check(run.elements.Lpad.current!, r.elements.Lpad.current!);
     check(run.elements.Rbat.voltage!, r.elements.Rbat.voltage!);
+  });
+
+  it('a circuit of sources that follow their phasors has one harmonic, the solve itself (superposition of one term)', () => {
+    const m = parseGraphModel(JSON.parse(readFileSync(new URL('../../examples/graphs/wireless-charging-85khz.json', import.meta.url), 'utf8')));
+    const r = harmonicSteadyState(m);
+    const s = solveGraph(m);
+    expect(r.orders).toEqual([1]);
+    for (const [id, e] of Object.entries(s.elements)) {
+      if (!('voltage' in e)) continue;
+      expect(r.elements[id].voltage!.phasors[0]).toEqual(e.voltage);
+      expect(r.elements[id].current!.phasors[0]).toEqual(e.current);
+      expect(r.elements[id].power[0]).toEqual(e.power);
+      expect(r.elements[id].current!.thd).toBe(0);
+    }
+    for (const [n, v] of Object.entries(s.nodes)) expect(r.nodes[n].phasors[0]).toEqual(v);
   });
 
   it('finds the common fundamental of sources at whole multiples: a phasor source, a sine and a constant', () => {

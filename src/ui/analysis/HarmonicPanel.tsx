@@ -156,7 +156,7 @@ function QuantityCard({ answer, pick, colour, onRemove }: { answer: HarmonicAnsw
       </dl>
       <div className="harmonic-rows">
         <table className="data" data-testid="harmonic-table">
-          <thead><tr><th scope="col">n</th><th scope="col">f</th><th scope="col">magnitude ({magLabel})</th><th scope="col">phase</th>{pick.power && <th scope="col">P absorbed</th>}</tr></thead>
+          <thead><tr><th scope="col">n</th><th scope="col">f</th><th scope="col">magnitude ({magLabel})</th><th scope="col" title="of the cosine, from the start of the period (t = 0)">phase</th>{pick.power && <th scope="col">P absorbed</th>}</tr></thead>
           <tbody>
             {answer.orders.slice(0, shown).map((n, k) => {
               const z = series.phasors[k];
