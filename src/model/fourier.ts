@@ -112,6 +112,13 @@ export function rebuildPeriod(fundamentalHz: number, orders: ArrayLike<number>, 
   const values = new Float64Array(samples + 1);
   const period = 1 / fundamentalHz;
   for (let k = 0; k <= samples; k++) timesS[k] = (k * period) / samples;
+  // every angle n·2π·k/samples is one of the samples' own: one table of cosines and sines serves all orders
+  const cos = new Float64Array(samples);
+  const sin = new Float64Array(samples);
+  for (let j = 0; j < samples; j++) {
+    cos[j] = Math.cos((2 * Math.PI * j) / samples);
+    sin[j] = Math.sin((2 * Math.PI * j) / samples);
+  }
   for (let i = 0; i < orders.length; i++) {
     const n = orders[i];
     const p = phasors[i];
@@ -122,10 +129,12 @@ export function rebuildPeriod(fundamentalHz: number, orders: ArrayLike<number>, 
     const re = scale * p.re;
     const im = scale * p.im;
     if (re === 0 && im === 0) continue;
-    for (let k = 0; k <= samples; k++) {
-      // the angle n·2π·k/samples, reduced to one turn before the cosine so that high orders keep their digits
-      const a = (2 * Math.PI * ((n * k) % samples)) / samples;
-      values[k] += re * Math.cos(a) - im * Math.sin(a);
+    const step = n % samples;
+    // the angle n·2π·k/samples reduced to one turn (so high orders keep their digits), stepped through the table
+    for (let k = 0, j = 0; k <= samples; k++) {
+      values[k] += re * cos[j] - im * sin[j];
+      j += step;
+      if (j >= samples) j -= samples;
     }
   }
   return { timesS, values };
