@@ -119,8 +119,9 @@ export function HarmonicPanel() {
 
 function Period({ answer, picks }: { answer: HarmonicAnswer; picks: Pick[] }) {
   const scale = answer.amplitudes === 'rms' ? Math.SQRT2 : 1;
-  // enough points a period to draw the highest harmonic (8 a cycle), within a bound
-  const samples = Math.min(8192, Math.max(512, 8 * answer.count));
+  // 8 points a cycle of the highest harmonic, up to about two a pixel of the plot: each point is the sum's
+  // exact value at its time, so past that only the straight lines between them would change
+  const samples = Math.min(2048, Math.max(512, 8 * answer.count));
   const keys = picks.map((p) => p.key).join('|');
   const waves = useMemo(
     () => picks.map((p) => rebuildPeriod(answer.fundamentalHz, answer.orders, p.series.phasors, scale, samples)),
