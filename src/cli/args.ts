@@ -7,6 +7,7 @@ export const USAGE = `usage:
   coilwright svg SHEET.json
   coilwright tf FILE.json --input SOURCE --output node:NAME|voltage:ELEMENT|current:ELEMENT
   coilwright transient FILE.json --stop S [--step S] [--probe NAME[,NAME...]] [--tolerance R] [--start given|dc]
+  coilwright harmonics FILE.json [--count N] [--probe NAME[,NAME...]]
 
 FILE is a graph model (coilwright.graph/1) or a sheet saved by the editor.
 HZ and S (seconds) are decimal numbers (50, 85000, 8.5e4, 2e-3); N a whole number from 1 to 1000000.
@@ -25,7 +26,11 @@ export interface TransientCommand {
   start: 'given' | 'dc';
   probe?: string[];
 }
-export type Command = SolveCommand | SweepCommand | TfCommand | TransientCommand | { command: 'help' };
+export interface HarmonicsCommand { command: 'harmonics'; file: string; count?: number; probe?: string[] }
+export type Command = SolveCommand | SweepCommand | TfCommand | TransientCommand | HarmonicsCommand | { command: 'help' };
+
+/** The most harmonics `harmonics` solves (the solver's MAX_HARMONIC_COUNT). */
+export const MAX_HARMONICS = 100_000;
 
 /** The most samples `transient` prints (contract). */
 export const MAX_SAMPLES = 1_000_000;
@@ -60,8 +65,8 @@ function wholeNumber(flag: string, raw: string): number {
 export function parseArgs(argv: string[]): Command {
   const [command, ...rest] = argv;
   if (command === undefined || command === 'help' || command === '--help' || command === '-h') return { command: 'help' };
-  if (command !== 'solve' && command !== 'sweep' && command !== 'svg' && command !== 'tf' && command !== 'transient') {
-    throw new UsageError(`unknown command "${command}"; use solve, sweep, tf, transient or svg`);
+  if (command !== 'solve' && command !== 'sweep' && command !== 'svg' && command !== 'tf' && command !== 'transient' && command !== 'harmonics') {
+    throw new UsageError(`unknown command "${command}"; use solve, sweep, tf, transient, harmonics or svg`);
   }
   const positional: string[] = [];
   const flags = new Map<string, string | true>();
@@ -77,7 +82,8 @@ export function parseArgs(argv: string[]): Command {
       } else if (
         (['--from', '--to', '--points', '--probe'].includes(name) && command === 'sweep') ||
         (['--input', '--output'].includes(name) && command === 'tf') ||
-        (['--stop', '--step', '--probe', '--tolerance', '--start'].includes(name) && command === 'transient')
+        (['--stop', '--step', '--probe', '--tolerance', '--start'].includes(name) && command === 'transient') ||
+        (['--count', '--probe'].includes(name) && command === 'harmonics')
       ) {
         const value = eq > 0 ? a.slice(eq + 1) : rest[++i];
         if (value === undefined) throw new UsageError(`${name} needs a value`);
@@ -113,6 +119,17 @@ export function parseArgs(argv: string[]): Command {
     const start = flags.has('--start') ? (flags.get('--start') as string) : 'given';
     if (start !== 'given' && start !== 'dc') throw new UsageError(`--start must be given or dc, got ${shown(start)}`);
     return { command, file, stop, step, tolerance, start, probe: flags.has('--probe') ? probeList(flags.get('--probe') as string) : undefined };
+  }
+  if (command === 'harmonics') {
+    let count: number | undefined;
+    if (flags.has('--count')) {
+      const raw = flags.get('--count') as string;
+      count = Number(raw);
+      if (!/^\d+$/.test(raw) || !(count >= 1 && count <= MAX_HARMONICS)) {
+        throw new UsageError(`--count must be a whole number from 1 to ${MAX_HARMONICS} in decimal digits (the highest harmonic solved), got ${shown(raw)}`);
+      }
+    }
+    return { command, file, count, probe: flags.has('--probe') ? probeList(flags.get('--probe') as string) : undefined };
   }
   if (command !== 'sweep') {
     if (flags.size) throw new UsageError(`${command} takes no options`);

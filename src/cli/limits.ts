@@ -69,3 +69,20 @@ export function sweepSizeProblem(points: number, values: number, elements: numbe
   }
   return null;
 }
+
+/** Complex values `harmonics` holds and prints: orders × probed quantities (the run is held in memory). */
+export const MAX_HARMONIC_VALUES = 4_000_000;
+
+/**
+ * Why a harmonic run of up to `orders` orders is refused (`quantities`: an upper bound on the complex
+ * series it prints, `elements` in the model), or null.
+ */
+export function harmonicsSizeProblem(orders: number, quantities: number, elements: number): string | null {
+  if (orders * quantities > MAX_HARMONIC_VALUES) {
+    return `up to ${count(orders)} orders × ${count(quantities)} probed values = ${count(orders * quantities)}, more than the ${count(MAX_HARMONIC_VALUES)} values a harmonic run holds; name fewer nodes and elements with --probe or use a lower --count`;
+  }
+  if (orders * elements > MAX_SWEEP_WORK) {
+    return `up to ${count(orders)} orders × ${count(elements)} elements = ${count(orders * elements)} element solves, more than the ${count(MAX_SWEEP_WORK)} a run takes on; use a lower --count`;
+  }
+  return null;
+}

@@ -1,12 +1,13 @@
 import { readFileSync, statSync } from 'node:fs';
-import { parseArgs, UsageError, USAGE, type SweepCommand, type TransientCommand } from './args';
+import { parseArgs, UsageError, USAGE, type HarmonicsCommand, type SweepCommand, type TransientCommand } from './args';
 import { loadModelText } from './load';
 import { jsonPieces } from './format';
-import { MAX_FILE_BYTES, sweepSizeProblem } from './limits';
+import { harmonicsSizeProblem, MAX_FILE_BYTES, sweepSizeProblem } from './limits';
 import { ColumnSpool, SpoolError } from './sweepSpool';
 import { sweepJsonPieces } from './sweepJson';
 import { transientJsonPieces } from './transientJson';
-import { ModelRefusal, solveGraph, sweepStream, frequencyAt, ProbeError, transferFunction, TransferUsageError, transientStream } from '../solver';
+import { ModelRefusal, solveGraph, sweepStream, frequencyAt, ProbeError, transferFunction, TransferUsageError, transientStream, harmonicSteadyState } from '../solver';
+import { DEFAULT_HARMONIC_COUNT } from '../model/fourier';
 import type { GraphModel } from '../model/graph';
 
 /** Exit status: 0 solved, 1 the model was refused, 2 the command line is wrong, 3 the output could not be written. */
@@ -116,6 +117,16 @@ async function transient(model: GraphModel, cmd: TransientCommand): Promise<void
   }
 }
 
+/** The harmonic steady state, held in memory within the limits (an upper bound on its size is checked first). */
+async function harmonics(model: GraphModel, cmd: HarmonicsCommand): Promise<void> {
+  const orders = (cmd.count ?? DEFAULT_HARMONIC_COUNT) + 1;
+  // every node and element at most: nodes ≤ 2 per element, four series for a transformer
+  const quantities = cmd.probe ? 4 * cmd.probe.length : 6 * model.elements.length;
+  const tooBig = harmonicsSizeProblem(orders, quantities, model.elements.length);
+  if (tooBig) throw new ModelRefusal(`harmonics: ${tooBig}`, [{ kind: 'model' }]);
+  await writeOut(jsonPieces(harmonicSteadyState(model, { count: cmd.count, probe: cmd.probe })));
+}
+
 async function main(argv: string[]): Promise<void> {
   let cmd;
   try {
@@ -140,6 +151,7 @@ async function main(argv: string[]): Promise<void> {
     else if (cmd.command === 'sweep') await sweep(model, cmd);
     else if (cmd.command === 'tf') await writeOut(jsonPieces(transferFunction(model, cmd.input, cmd.output)));
     else if (cmd.command === 'transient') await transient(model, cmd);
+    else if (cmd.command === 'harmonics') await harmonics(model, cmd);
   } catch (e) {
     if (e instanceof ProbeError || e instanceof TransferUsageError) fail(2, e.message);
     if (e instanceof ModelRefusal) fail(1, e.message);

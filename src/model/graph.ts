@@ -9,6 +9,7 @@ export const RESULT_SCHEMA = 'coilwright.result/1';
 export const SWEEP_SCHEMA = 'coilwright.sweep/1';
 export const TRANSFER_SCHEMA = 'coilwright.transfer/1';
 export const TRANSIENT_SCHEMA = 'coilwright.transient/1';
+export const HARMONICS_SCHEMA = 'coilwright.harmonics/1';
 
 export type Amplitudes = 'rms' | 'peak';
 export type DotEnd = 'first' | 'second';
@@ -78,6 +79,35 @@ export interface TransferResult {
   numerator: number[];
   denominator: number[];
   naturalFrequencies: ComplexJson[];
+  warnings: string[];
+}
+
+/** One quantity of the harmonic steady state: its phasor per order (DC as a real value), true RMS, THD (absent without a fundamental). */
+export interface HarmonicSeries { phasors: ComplexJson[]; rms: number; thd?: number }
+
+/** The harmonic steady state (`harmonics`; our own output, README "Command line"). */
+export interface HarmonicResult {
+  schema: typeof HARMONICS_SCHEMA;
+  amplitudes: Amplitudes;
+  fundamentalHz: number;
+  /** the highest order asked for */
+  count: number;
+  /** the orders solved, ascending (0 is DC): those at which some source is non-zero */
+  orders: number[];
+  frequenciesHz: number[];
+  nodes: Record<string, HarmonicSeries>;
+  elements: Record<string, {
+    voltage?: HarmonicSeries;
+    current?: HarmonicSeries;
+    voltages?: [HarmonicSeries, HarmonicSeries];
+    currents?: [HarmonicSeries, HarmonicSeries];
+    /** the complex power absorbed at each order (DC: V·I) */
+    power: PowerJson[];
+    /** the average power absorbed, Σ over the orders */
+    watts: number;
+  }>;
+  /** per order: the real power the sources deliver and the lossy parts (resistors, switches) absorb, over the whole circuit */
+  balance: { delivered: number[]; dissipated: number[]; totalDelivered: number; totalDissipated: number };
   warnings: string[];
 }
 

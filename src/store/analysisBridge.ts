@@ -3,7 +3,7 @@
  * promise with progress reports and a cancel. A crashed worker is replaced
  * and every open question is refused with a message.
  */
-import type { AnalysisReply, AnalysisRequest, CompareAnswer, InspectAnswer, PowerAnswer, SweepAnswer, SweepSpec, TAnswer, TransferAnswer, TransientAnswer, TransientSpec } from '../worker/protocol';
+import type { AnalysisReply, AnalysisRequest, CompareAnswer, HarmonicAnswer, InspectAnswer, PowerAnswer, SweepAnswer, SweepSpec, TAnswer, TransferAnswer, TransientAnswer, TransientSpec } from '../worker/protocol';
 import type { GraphModel, RefusalCulprit, SolveResult } from '../model/graph';
 
 export interface AnalysisWorkerLike {
@@ -82,6 +82,9 @@ export class AnalysisClient {
   }
   transfer(model: GraphModel, input: string, output: string) {
     return this.ask<TransferAnswer>({ kind: 'transfer', model, input, output }).promise;
+  }
+  harmonics(model: GraphModel, count: number) {
+    return this.ask<HarmonicAnswer>({ kind: 'harmonics', model, count }).promise;
   }
   /** A sweep that reports progress; `cancel()` stops it between chunks (its promise then rejects with CancelledError). */
   sweep(model: GraphModel, spec: SweepSpec, progress?: (done: number, total: number) => void): { promise: Promise<SweepAnswer>; cancel: () => void } {

@@ -5,7 +5,7 @@ import type { GraphModel, RefusalCulprit, SolveResult } from '../model/graph';
 import type { TRecord } from '../model/tEquivalentSheet';
 import type { ValueTarget } from '../model/valueTarget';
 
-export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain' | 'time';
+export type AnalysisView = 'compare' | 'tequiv' | 'sweep' | 'phasor' | 'power' | 'sdomain' | 'harmonic' | 'time';
 
 /** What a time-view trace plots: a node's voltage, or an element's voltage or current (a two-port's side 0 or 1). */
 export type TimeQuantity = { kind: 'node'; node: string } | { kind: 'voltage' | 'current'; element: string; side?: 0 | 1 };

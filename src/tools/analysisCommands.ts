@@ -29,5 +29,6 @@ export const ANALYSIS_COMMANDS: Command[] = [
   { id: 'analysis-phasors', label: 'Phasors', keys: ['g'], hint: 'Phasor diagram of chosen voltages and currents to scale, and their waveforms over two periods', run: () => openView('phasor') },
   { id: 'analysis-sdomain', label: 'Poles and zeros', keys: ['z'], hint: 'The transfer function H(s) from a source to a node, a voltage or a current: its poles and zeros on the s-plane, and the natural frequencies of the whole circuit', run: () => openView('sdomain') },
   { id: 'analysis-time', label: 'Time response', keys: ['r'], hint: 'Voltages and currents over time from t = 0 (switching, waveforms, initial values): cursor, zoom, measurements over a window; the sheet follows the cursor', run: () => openView('time') },
+  { id: 'analysis-harmonics', label: 'Harmonics', keys: ['n'], hint: 'The steady state of periodic sources (square waves, sines at multiples of one fundamental) as a sum of harmonics: one period rebuilt, each harmonic\'s magnitude, phase and power, true RMS and THD', run: () => openView('harmonic') },
   { id: 'analysis-power', label: 'Power balance', keys: ['e'], hint: 'P, Q, |S| and power factor of every part; totals, efficiency and the Tellegen check', run: () => openView('power') },
 ];

@@ -7,7 +7,7 @@
 import type { RefusalCulprit } from '../model/graph';
 import type { AnalysisReply, AnalysisRequest } from './protocol';
 import { transferables, transientRun } from './transientTask';
-import { chunkRanges, compare, inspect, power, prepareSweep, tCheck, transfer } from './analysisTasks';
+import { chunkRanges, compare, harmonics, inspect, power, prepareSweep, tCheck, transfer } from './analysisTasks';
 
 declare const self: DedicatedWorkerGlobalScope;
 
@@ -70,6 +70,7 @@ self.onmessage = async (ev: MessageEvent<AnalysisRequest>) => {
       case 'sweep': return await sweep(req);
       case 'transient': return await transient(req);
       case 'transfer': return post({ id: req.id, type: 'done', value: transfer(req.model, req.input, req.output) });
+      case 'harmonics': return post({ id: req.id, type: 'done', value: harmonics(req.model, req.count) });
     }
   } catch (e) {
     // a refusal names its culprits too, for the editor to point at

@@ -7,9 +7,9 @@ import type { ComplexJson, GraphModel, InductorEl, SolveResult, TwoTerminalResul
 import { withNameTables } from '../model/names';
 import { portAgreement } from '../model/resultCompare';
 import { hasValueTarget, withValue } from '../model/valueTarget';
-import type { CompareAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer, TransferAnswer } from './protocol';
+import type { CompareAnswer, HarmonicAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer, TransferAnswer } from './protocol';
 import {
-  compareDotFlip, connectionOf, createSession, frequencyGrid, pairState, parseGraphModel, powerSummary,
+  compareDotFlip, connectionOf, createSession, frequencyGrid, harmonicSteadyState, pairState, parseGraphModel, powerSummary,
   reflectedImpedances, solveGraph, sourceImpedance, substituteTEquivalent, tEquivalent, transferFunction, type SolverSession,
 } from '../solver';
 import { sourceRole } from '../solver/elements/registry';
@@ -288,4 +288,17 @@ export function transfer(raw: GraphModel, input: string, output: string): Transf
     if (best >= 0) used.add(best);
   }
   return { ...tf, seen: tf.naturalFrequencies.map((_, i) => used.has(i)) };
+}
+
+/** The most harmonics the editor's view solves (the command line takes more). */
+export const VIEW_MAX_HARMONICS = 5000;
+
+/** The harmonic steady state of the whole circuit up to order `count` (refusals name the source). */
+export function harmonics(raw: GraphModel, count: number): HarmonicAnswer {
+  if (!(Number.isInteger(count) && count >= 1 && count <= VIEW_MAX_HARMONICS)) {
+    throw new Error(`the number of harmonics must be a whole number from 1 to ${VIEW_MAX_HARMONICS}`);
+  }
+  const t0 = performance.now();
+  const result = harmonicSteadyState(parseGraphModel(raw), { count });
+  return { ...result, ms: performance.now() - t0 };
 }

@@ -5,7 +5,7 @@
  * chunks that report progress and can be cancelled. The answers are built
  * from the solver's own types; the editor imports these types only.
  */
-import type { ComplexJson, GraphModel, RefusalCulprit, SolveResult, TransferResult } from '../model/graph';
+import type { ComplexJson, GraphModel, HarmonicResult, RefusalCulprit, SolveResult, TransferResult } from '../model/graph';
 import type { Change, PairState, PowerSummary, TEquivalent } from '../solver';
 import type { ValueTarget } from '../model/valueTarget';
 
@@ -77,6 +77,9 @@ export type TransferAnswer = TransferResult & {
   seen: boolean[];
 };
 
+/** The harmonic steady state of the whole circuit (the solver's harmonicSteadyState), with the time it took. */
+export type HarmonicAnswer = HarmonicResult & { ms: number };
+
 export interface SweepAnswer {
   /** the frequency of each point (all the same in a value sweep) */
   frequenciesHz: number[];
@@ -123,6 +126,7 @@ export type AnalysisRequest =
   | { id: number; kind: 'sweep'; model: GraphModel; spec: SweepSpec }
   | { id: number; kind: 'transfer'; model: GraphModel; input: string; output: string }
   | { id: number; kind: 'transient'; model: GraphModel; spec: TransientSpec }
+  | { id: number; kind: 'harmonics'; model: GraphModel; count: number }
   | { id: number; kind: 'cancel'; target: number };
 
 export type AnalysisReply =

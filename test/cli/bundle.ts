@@ -1,4 +1,6 @@
-import { mkdtempSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { beforeAll } from 'vitest';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -12,4 +14,24 @@ export async function bundleCli(prefix: string): Promise<{ dir: string; cli: str
   const cli = join(dir, 'coilwright.mjs');
   await build({ entryPoints: [join(root, 'src/cli/main.ts')], outfile: cli, bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'error' });
   return { dir, cli };
+}
+
+/**
+ * A bundle of the command line built before the file's tests (beforeAll), a runner for it, and model files
+ * written into a folder of the test's own.
+ */
+export function cliHarness(prefix: string) {
+  const dir = mkdtempSync(join(tmpdir(), `${prefix}models-`));
+  let cli = '';
+  beforeAll(async () => {
+    ({ cli } = await bundleCli(prefix));
+  });
+  let counter = 0;
+  const run = (args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });
+  const fileWith = (content: unknown) => {
+    const p = join(dir, `m${counter++}.json`);
+    writeFileSync(p, JSON.stringify(content));
+    return p;
+  };
+  return { run, fileWith };
 }

@@ -1,10 +1,5 @@
-import { beforeAll, describe, it, expect } from 'vitest';
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { build } from 'esbuild';
+import { describe, it, expect } from 'vitest';
+import { cliHarness } from './bundle';
 
 /**
  * `tf` through the command line as a script would call it (contract:
@@ -14,20 +9,7 @@ import { build } from 'esbuild';
  * one line on standard error and nothing on standard output either way.
  */
 
-const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
-const dir = mkdtempSync(join(tmpdir(), 'coilwright-tf-'));
-// a bundle of its own, so that this file never races another test rebuilding dist-cli
-const cli = join(dir, 'coilwright.mjs');
-beforeAll(async () => {
-  await build({ entryPoints: [join(root, 'src/cli/main.ts')], outfile: cli, bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'error' });
-});
-let counter = 0;
-const run = (args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });
-const fileWith = (content: unknown) => {
-  const p = join(dir, `m${counter++}.json`);
-  writeFileSync(p, JSON.stringify(content));
-  return p;
-};
+const { run, fileWith } = cliHarness('coilwright-tf-');
 const model = (elements: unknown[], couplings: unknown[] = []) => ({ schema: 'coilwright.graph/1', frequencyHz: 50, amplitudes: 'rms', ground: 'gnd', elements, couplings });
 const rlc = fileWith(model([
   { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },

@@ -1,9 +1,5 @@
-import { beforeAll, describe, it, expect } from 'vitest';
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { bundleCli } from './bundle';
+import { describe, it, expect } from 'vitest';
+import { cliHarness } from './bundle';
 /**
  * `transient` through the command line as a script would call it (contract:
  * time-and-s-domain.md, "transient" and "Exit status"): the output times and
@@ -12,18 +8,7 @@ import { bundleCli } from './bundle';
  * one line on standard error and nothing on standard output either way.
  */
 
-const dir = mkdtempSync(join(tmpdir(), 'coilwright-transient-models-'));
-let cli = '';
-beforeAll(async () => {
-  ({ cli } = await bundleCli('coilwright-transient-'));
-});
-let counter = 0;
-const run = (args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });
-const fileWith = (content: unknown) => {
-  const p = join(dir, `m${counter++}.json`);
-  writeFileSync(p, JSON.stringify(content));
-  return p;
-};
+const { run, fileWith } = cliHarness('coilwright-transient-');
 const model = (elements: unknown[]) => ({ schema: 'coilwright.graph/1', frequencyHz: 50, amplitudes: 'peak', ground: 'gnd', elements, couplings: [] });
 // a 10 V step into R = 10 Ω and L = 10 mH: i(t) = 1 − e^(−t/τ) A, τ = L/R = 1 ms (closed form, first-order circuit)
 const rl = fileWith(model([

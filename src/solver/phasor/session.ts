@@ -42,7 +42,12 @@ export interface RawSolution {
   /** the unknown vector */
   xRe: Float64Array;
   xIm: Float64Array;
+  /** the sources' values this solution was driven by, per element index (absent: each source's own phasor) */
+  sources?: SourceValues;
 }
+
+/** A value for every source, per element index (elements that are no source are skipped). */
+export interface SourceValues { re: Float64Array; im: Float64Array }
 
 /**
  * Owns one circuit structure: topology, MNA pattern and the symbolic analysis
@@ -121,8 +126,12 @@ export class SolverSession {
     return this.topo.warnings;
   }
 
-  /** Solves at one frequency; throws ModelRefusal naming the culprit when it cannot. */
-  solveRaw(frequencyHz: number): RawSolution {
+  /**
+   * Solves at one frequency; throws ModelRefusal naming the culprit when it cannot. `sources` drives the
+   * circuit by other source values than the model's phasors (a harmonic of a periodic source), on the same
+   * structure and the same symbolic analysis.
+   */
+  solveRaw(frequencyHz: number, sources?: SourceValues): RawSolution {
     if (!(frequencyHz >= 0) || !Number.isFinite(frequencyHz)) {
       throw new ModelRefusal(`model: frequency ${frequencyHz} Hz is not a finite number >= 0`, [{ kind: 'model' }]);
     }
@@ -133,7 +142,7 @@ export class SolverSession {
     }
     if (dc && this.form === 'ac') {
       this.dcTwin ??= new SolverSession(this.model, undefined, 'dc');
-      return this.dcTwin.solveRaw(0);
+      return this.dcTwin.solveRaw(0, sources);
     }
     if (!this.lu) {
       // taken over by a later session: this one gets buffers of its own again
@@ -160,8 +169,16 @@ export class SolverSession {
       if (e instanceof SingularMatrixError) throw this.singularRefusal(e.column, frequencyHz);
       throw e;
     }
-    const xRe = this.rhsRe.slice();
-    const xIm = this.rhsIm.slice();
+    let xRe: Float64Array;
+    let xIm: Float64Array;
+    if (sources) {
+      xRe = new Float64Array(mna.n);
+      xIm = new Float64Array(mna.n);
+      rightHandSide(mna, sources.re, sources.im, xRe, xIm);
+    } else {
+      xRe = this.rhsRe.slice();
+      xIm = this.rhsIm.slice();
+    }
     lu.solve(xRe, xIm);
     const nNodes = this.topo.nodeNames.length;
     const vRe = new Float64Array(nNodes);
@@ -182,7 +199,7 @@ export class SolverSession {
         );
       }
     }
-    return { frequencyHz, mna, vRe, vIm, xRe, xIm };
+    return { frequencyHz, mna, vRe, vIm, xRe, xIm, ...(sources ? { sources } : {}) };
   }
 
   solveAt(frequencyHz: number): SolveResult {
@@ -253,6 +270,14 @@ export class SolverSession {
       }
     }
     return column >= 0 && (!(largest <= 1e150) || largest > 1e30 * smallest) ? { column, size: largest } : null;
+  }
+
+  /**
+   * Port p of element i in a raw solution: its voltage and current (reference directions of graph-model.md),
+   * into `out`, without building the result JSON (for analyses that read many solutions).
+   */
+  readPort(sol: RawSolution, i: number, p: number, out: { vr: number; vi: number; ir: number; ii: number }): void {
+    readPort(this, sol, i, p, out);
   }
 
   /** Builds the contract's result JSON from a raw solution. */
@@ -366,6 +391,11 @@ function readPort(session: SolverSession, sol: RawSolution, i: number, p: number
       return;
     }
     case 'source': {
+      if (sol.sources) {
+        out.ir = sol.sources.re[i];
+        out.ii = sol.sources.im[i];
+        return;
+      }
       const ph = defOf(el).phasor!(el as never);
       out.ir = ph.re;
       out.ii = ph.im;

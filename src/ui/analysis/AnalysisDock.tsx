@@ -8,6 +8,7 @@
 import { useRef, useState } from 'react';
 import { CommandButton } from '../CommandButton';
 import { ComparePanel } from './ComparePanel';
+import { HarmonicPanel } from './HarmonicPanel';
 import { PhasorPanel } from './PhasorPanel';
 import { PowerPanel } from './PowerPanel';
 import { SPlanePanel } from './SPlanePanel';
@@ -18,7 +19,7 @@ import { useAnalysis } from './useSolved';
 import { openView } from '../../store/analysisActions';
 import './analysis.css';
 
-const TITLES = { compare: 'Dot comparison', tequiv: 'T-equivalent', sweep: 'Sweep', phasor: 'Phasors and waveforms', power: 'Power balance', sdomain: 'Poles and zeros (s-domain)', time: 'Time response' } as const;
+const TITLES = { compare: 'Dot comparison', tequiv: 'T-equivalent', sweep: 'Sweep', phasor: 'Phasors and waveforms', power: 'Power balance', sdomain: 'Poles and zeros (s-domain)', harmonic: 'Harmonics (periodic steady state)', time: 'Time response' } as const;
 
 const DOCK_KEY = 'coilwright:dock-height';
 const readHeight = () => {
@@ -41,6 +42,7 @@ export function AnalysisTabs() {
       <CommandButton id="analysis-power" pressed={view === 'power'} />
       <CommandButton id="analysis-sdomain" pressed={view === 'sdomain'} />
       <CommandButton id="analysis-time" pressed={view === 'time'} />
+      <CommandButton id="analysis-harmonics" pressed={view === 'harmonic'} />
     </div>
   );
 }
@@ -85,6 +87,7 @@ export function AnalysisDock() {
         {view === 'power' && <PowerPanel />}
         {view === 'sdomain' && <SPlanePanel />}
         {view === 'time' && <TimePanel />}
+        {view === 'harmonic' && <HarmonicPanel />}
       </div>
     </section>
   );

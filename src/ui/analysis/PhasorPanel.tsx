@@ -1,8 +1,6 @@
 /** Phasor diagram of chosen voltages and currents to scale (separate scales for V and A), and their waveforms over two periods. */
 import { sourceKindOf } from '../../model/elementFacts';
 import { useMemo, useState } from 'react';
-import { scaleLinear } from 'd3-scale';
-import { line } from 'd3-shape';
 import type { ComplexJson, SolveResult } from '../../model/graph';
 import { formatAngle, formatSI } from '../../model/quantity';
 import { cabs, cdeg } from './format';
@@ -10,7 +8,8 @@ import { niceCeil, waveform } from './plotMath';
 import { TRACE_COLOURS } from './sweepPlots';
 import { useSolved } from './useSolved';
 import { layoutPhasors } from './phasorLayout';
-import { textWidth, usePaneWidth } from './Plot';
+import { textWidth } from './Plot';
+import { VoltsAmpsPlot } from './VoltsAmpsPlot';
 
 interface Pick { key: string; label: string; unit: 'V' | 'A'; z: ComplexJson }
 
@@ -130,37 +129,14 @@ export function PhasorPanel() {
 }
 
 function Waves({ picks, f, amplitudes, vMax, iMax }: { picks: Pick[]; f: number; amplitudes: 'rms' | 'peak'; vMax: number; iMax: number }) {
-  const [pane, W] = usePaneWidth();
-  const H = 180;
   const k = amplitudes === 'rms' ? Math.SQRT2 : 1;
-  const T = f > 0 ? 2 / f : 1;
-  const m = { l: 60, r: 60, t: 10, b: 26 };
-  const x = scaleLinear().domain([0, T]).range([m.l, W - m.r]);
-  const yV = scaleLinear().domain([-(vMax || 1) * k, (vMax || 1) * k]).range([H - m.b, m.t]);
-  const yI = scaleLinear().domain([-(iMax || 1) * k, (iMax || 1) * k]).range([H - m.b, m.t]);
-  const vt = yV.ticks(4).map((t) => ({ t, s: formatSI(t, 'V', 3) }));
-  const it = yI.ticks(4).map((t) => ({ t, s: formatSI(t, 'A', 3) }));
-  // margins from the labels drawn in them
-  m.l = Math.ceil(Math.max(...vt.map((v) => textWidth(v.s))) + 8);
-  m.r = Math.ceil(Math.max(...it.map((v) => textWidth(v.s))) + 8);
-  x.range([m.l, W - m.r]);
+  const traces = picks.map((p, i) => {
+    const w = waveform(p.z.re, p.z.im, f, amplitudes, 240);
+    return { key: p.key, label: p.label, unit: p.unit, colour: TRACE_COLOURS[i % TRACE_COLOURS.length], t: w.t, y: w.y };
+  });
   return (
-    <div className="plot" data-testid="waveforms" ref={pane}>
+    <VoltsAmpsPlot traces={traces} spanS={f > 0 ? 2 / f : 1} vMax={(vMax || 1) * k} iMax={(iMax || 1) * k} label="Waveforms over two periods" testId="waveforms">
       <p className="muted">Instantaneous values over two periods: x(t) = {amplitudes === 'rms' ? '√2·|X|' : '|X|'}·cos(ωt + φ) ({amplitudes === 'rms' ? 'RMS' : 'peak'} phasors). Voltages on the left scale, currents on the right.</p>
-      <svg width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" aria-label="Waveforms over two periods">
-        <line x1={m.l} x2={W - m.r} y1={yV(0)} y2={yV(0)} stroke="#ccc" />
-        <g className="axis">
-          {vt.map(({ t, s }) => <text key={`v${t}`} x={m.l - 4} y={yV(t) + 3} textAnchor="end" fontSize={10}>{s}</text>)}
-          {it.map(({ t, s }) => <text key={`i${t}`} x={W - m.r + 4} y={yI(t) + 3} fontSize={10}>{s}</text>)}
-          {x.ticks(4).map((t) => <text key={`t${t}`} x={x(t)} y={H - 8} textAnchor={t === 0 ? 'start' : x(t) > W - m.r - 20 ? 'end' : 'middle'} fontSize={10}>{formatSI(t, 's', 3)}</text>)}
-        </g>
-        {picks.map((p, i) => {
-          const w = waveform(p.z.re, p.z.im, f, amplitudes, 240);
-          const y = p.unit === 'V' ? yV : yI;
-          const d = line<number>().x((j) => x(w.t[j])).y((j) => y(w.y[j]))(Array.from({ length: w.t.length }, (_, j) => j)) ?? '';
-          return <path key={p.key} d={d} fill="none" stroke={TRACE_COLOURS[i % TRACE_COLOURS.length]} strokeWidth={1.5} strokeDasharray={p.unit === 'A' ? '5 3' : undefined} />;
-        })}
-      </svg>
-    </div>
+    </VoltsAmpsPlot>
   );
 }
