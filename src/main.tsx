@@ -18,6 +18,7 @@ import { pinPositions } from './model/parts/registry';
 import { overlayProbe, sheetProbe } from './store/probe';
 import { sweepTestHold } from './ui/analysis/sweepRunner';
 import { drawnTags } from './canvas/drawOverlay';
+import { drawnText } from './canvas/drawPrims';
 import './ui/app.css';
 
 const storage = window.localStorage;
@@ -71,6 +72,8 @@ const tools = new ToolController(store);
   toScreen: (x: number, y: number) => worldToScreen(store.getState().view, x, y),
   /** the reading tags last drawn on the canvas, as boxes in sheet units */
   tags: () => drawnTags.boxes,
+  /** the font sizes of the drawing's text last drawn, in sheet units (screen px at 100 % zoom) */
+  textSizes: () => [...drawnText.sizes].sort((a, b) => a - b),
   /** a part's pin in sheet units */
   pin: (ref: string, pin: number) => {
     const p = store.getState().sheet.parts.find((q) => q.ref === ref);
