@@ -9,7 +9,7 @@ import { nameTable } from '../../model/names';
 import { ModelRefusal } from '../errors';
 import { buildTopology, type Topology } from '../core/topology';
 import { checkSolvable } from '../core/checks';
-import { collectMutuals } from '../core/windings';
+import { collectMutuals, reciprocalInductances } from '../core/windings';
 import { buildDescriptor, rightHandSide, smallResistors, type Descriptor } from '../core/descriptor';
 import { defOf, isWinding, sourceRole } from '../elements/registry';
 import { exactResonance, perfectCouplings, quotedList } from './singularHints';
@@ -17,11 +17,13 @@ import { analyze, ComplexSparseLU, type LuOptions, type LuSymbolic } from '../lu
 import { SingularMatrixError, type CscPattern } from '../sparse/types';
 
 /**
- * 'ac': windings stamped through the reciprocal inductance matrix where that
- * is well conditioned (fewer unknowns); 'dc': the full branch form, which 0 Hz
- * needs (an inductance is a short there).
+ * 'ac': every winding keeps its branch current (row V − jωL·I = 0), small resistors get one too; 'dc': the
+ * full branch form, which 0 Hz needs (an inductance is a short there); 'admittance': windings stamped through
+ * the reciprocal inductance matrix Γ/(jω) where that is well conditioned (fewer unknowns, but digits lost when
+ * ωL is small beside its surroundings), kept as the independent second writing that tests and the benchmark
+ * compare the branch form with.
  */
-export type MnaForm = 'ac' | 'dc';
+export type MnaForm = 'ac' | 'dc' | 'admittance';
 
 /**
  * Rows and columns equilibrated before pivoting and before the singular test (sparse/scaling.ts), so that
@@ -85,7 +87,10 @@ export class SolverSession {
     // every winding keeps its branch current at every frequency: rebuilding it from node voltages through
     // 1/(jωL) (the reciprocal form, core/windings.ts) cancels digits when ωL is small beside its surroundings
     // (error ~ 1e-16·|Z around|/|ωL|), while the branch row V − jωL·I = 0 yields I exactly
-    this.mna = buildDescriptor(model, this.topo, mutuals, { branchResistors: smallResistors(model, this.topo) });
+    this.mna = buildDescriptor(model, this.topo, mutuals, {
+      branchResistors: smallResistors(model, this.topo),
+      reduced: form === 'admittance' ? reciprocalInductances(model, mutuals) : undefined,
+    });
     const n = this.mna.n;
     const srcRe = new Float64Array(model.elements.length);
     const srcIm = new Float64Array(model.elements.length);
@@ -137,7 +142,7 @@ export class SolverSession {
       checkSolvable(this.model, this.topo, frequencyHz);
       this.checked.add(dc);
     }
-    if (dc && this.form === 'ac') {
+    if (dc && this.form !== 'dc') {
       this.dcTwin ??= new SolverSession(this.model, undefined, 'dc');
       return this.dcTwin.solveRaw(0);
     }
@@ -151,7 +156,7 @@ export class SolverSession {
     const omega = 2 * Math.PI * frequencyHz;
     const { g, c, inv } = mna;
     re.set(g);
-    if (this.form === 'ac') {
+    if (this.form !== 'dc') {
       const invOmega = 1 / omega;
       for (let s = 0; s < im.length; s++) im[s] = omega * c[s] - inv[s] * invOmega;
     } else {
