@@ -18,7 +18,13 @@ emit({ unknowns: nodes.size - 1 + inductors + 1, states: inductors + model.eleme
 // the voltage halfway along the ladder
 const output = `node:a${Math.ceil(sections / 2)}`;
 let t = now();
-let tf = solver.transferFunction(model, 'Vin', output);
+let tf;
+try {
+  tf = solver.transferFunction(model, 'Vin', output);
+} catch (e) {
+  emit({ error: `refused after ${Math.round(now() - t)} ms: ${String(e?.message ?? e).slice(0, 90)}` });
+  process.exit(0);
+}
 emit({ firstMs: now() - t, poles: tf.poles.length, zeros: tf.zeros.length });
 // warm: the median of up to five more, within ten seconds
 const times = [];
