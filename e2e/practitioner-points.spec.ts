@@ -445,3 +445,40 @@ test('10: the new-sheet notice goes with its sheet; a long title keeps the top b
     if (r) expect(r.y + r.height).toBeLessThanOrEqual(bar.y + bar.height + 0.5);
   }
 });
+
+test('6: tags stay inside the view when the drawing is larger than it; the drawing\'s text is about 11 px at 100 % zoom', async ({ page }) => {
+  await page.setViewportSize({ width: 1024, height: 768 });
+  await page.goto('/');
+  await expect.poll(async () => (await state(page)).solve.status).toBe('solved');
+  await page.getByRole('toolbar', { name: 'Edit and view' }).getByRole('button', { name: /^Show all/ }).click();
+  // the drawing's text in sheet units, which is screen px at 100 % zoom: designators, values, tags, couplings, node names
+  await expect.poll(async () => (await page.evaluate(() => (window as any).__coilwright.textSizes())).length).toBeGreaterThan(1);
+  const sizes: number[] = await page.evaluate(() => (window as any).__coilwright.textSizes());
+  for (const s of sizes) {
+    expect(s).toBeGreaterThanOrEqual(10);
+    expect(s).toBeLessThanOrEqual(12);
+  }
+  expect(sizes).toContain(11);
+  // closer and closer about the middle: the drawing outgrows the view, and every tag drawn stays inside it
+  const canvas = page.getByTestId('sheet-canvas');
+  await canvas.focus();
+  const z0 = (await state(page)).view.zoom;
+  for (let i = 0; i < 4; i++) await page.keyboard.press('=');
+  await expect.poll(async () => (await state(page)).view.zoom).toBeCloseTo(z0 * 1.25 ** 4, 9);
+  // the view's own size (the drawing area's whole pixels)
+  const box = await page.evaluate(() => { const el = document.querySelector('.canvas-box')!; return { width: el.clientWidth, height: el.clientHeight }; });
+  await expect.poll(async () => (await page.evaluate(() => (window as any).__coilwright.tags())).length).toBeGreaterThan(0);
+  const onScreen: { x0: number; y0: number; x1: number; y1: number; text: string }[] = await page.evaluate(() => {
+    const w = (window as any).__coilwright;
+    return w.tags().map((b: any) => {
+      const a = w.toScreen(b.x0, b.y0), c = w.toScreen(b.x1, b.y1);
+      return { x0: a.x, y0: a.y, x1: c.x, y1: c.y, text: b.text };
+    });
+  });
+  for (const t of onScreen) {
+    expect(t.x0, `${t.text} left`).toBeGreaterThanOrEqual(0);
+    expect(t.y0, `${t.text} top`).toBeGreaterThanOrEqual(0);
+    expect(t.x1, `${t.text} right`).toBeLessThanOrEqual(box.width);
+    expect(t.y1, `${t.text} bottom`).toBeLessThanOrEqual(box.height);
+  }
+});

@@ -2,7 +2,7 @@
 // Benchmark of the solver and the command line (`npm run bench`).
 //
 //   node scripts/bench.mjs [--sizes 100,1000,10000,100000] [--no-cli] [--no-mathjs] [--no-memory] [--full]
-//                          [--star-sizes 100000,300000,1000000] [--no-star]
+//                          [--star-sizes 100000,300000,1000000] [--no-star] [--no-tf] [--no-forms]
 //
 // Generates RLC ladders and 2-D meshes (scripts/bench/generators.ts) into
 // bench/out/, then measures
@@ -12,6 +12,10 @@
 //   - peak memory of a fresh process that reads, solves and sweeps one model;
 //   - a star (one hub node joined to every other node, scripts/bench/generators.ts `star`) in-process at
 //     100k, 300k and 1M nodes, where cost must stay near-linear (scripts/bench/star-child.mjs);
+//   - the branch form of windings (every winding current an unknown) against the admittance form (Γ/(jω)):
+//     unknowns, fresh factor and sweep point per model (scripts/bench/forms-child.mjs);
+//   - `tf` (poles, zeros and natural frequencies) on RLC ladders of about 20, 200 and 2,000 MNA unknowns
+//     (scripts/bench/tf-child.mjs);
 //   - wall time of the bundled command line against the SciPy script
 //     scripts/bench/scipy_yardstick.py doing the same work from the same file.
 // Prints tables and one line per target; writes bench/out/results.json.
@@ -34,6 +38,8 @@ const YARDSTICK = join(ROOT, 'scripts', 'bench', 'scipy_yardstick.py');
 const INPROC_CHILD = join(ROOT, 'scripts', 'bench', 'inproc-child.mjs');
 const MEM_CHILD = join(ROOT, 'scripts', 'bench', 'mem-child.mjs');
 const STAR_CHILD = join(ROOT, 'scripts', 'bench', 'star-child.mjs');
+const TF_CHILD = join(ROOT, 'scripts', 'bench', 'tf-child.mjs');
+const FORMS_CHILD = join(ROOT, 'scripts', 'bench', 'forms-child.mjs');
 const GENERATORS = ['ladder', 'mesh'];
 const SWEEP_ARGS = ['--from', '10', '--to', '100000', '--points', String(SWEEP_POINTS), '--log'];
 
@@ -250,6 +256,28 @@ if (solver) {
   results.stars = stars;
 }
 
+// ---------------------------------------------------------------- winding forms
+const formRuns = [];
+if (solver && !flag('--no-forms') && typeof solver.SolverSession === 'function') {
+  for (const c of cases) {
+    note(`winding forms ${c.gen} ${fmtN(c.n)}`);
+    formRuns.push({ gen: c.gen, n: c.n, ...runJsonChild(['--expose-gc', FORMS_CHILD, solverFile, c.file, String(c.n)], inprocCapMs(c.n)) });
+  }
+  results.forms = formRuns;
+}
+
+// ---------------------------------------------------------------- tf (s-domain)
+// ladders of s sections have 3s + 2 MNA unknowns (2s + 1 nodes, s inductor currents, the source's) and 2s states
+const tfRuns = [];
+if (solver && !flag('--no-tf') && typeof solver.transferFunction === 'function') {
+  for (const sections of [6, 66, 666]) {
+    note(`tf ladder of ${sections} sections`);
+    const figures = runJsonChild([TF_CHILD, solverFile, genBundle.file, String(sections)], 180000);
+    tfRuns.push({ sections, ...figures });
+  }
+  results.tf = tfRuns;
+}
+
 // ---------------------------------------------------------------- command line
 let cliReady = false;
 if (!flag('--no-cli') && CLI_SIZES.length) {
@@ -400,6 +428,22 @@ if (results.cli.length) {
   log('  agree = largest node-voltage difference between the two outputs, relative to the largest voltage');
   for (const r of results.cli)
     for (const k of Object.keys(r)) if (k.endsWith('_error') || k.endsWith('_skipped')) log(`  ${r.gen} ${fmtN(r.n)} ${k.replace(/_(error|skipped)$/, '').replace('py_', 'SciPy ').replace('cli_', 'command-line ')}: ${r[k]}`);
+}
+if (formRuns.length) {
+  log('\nWinding forms (in-process, ms, medians): branch = every winding keeps its current (the phasor default), admittance = Γ/(jω)');
+  log(pad([
+    ['model', 'nodes', 'unknowns branch', 'unknowns admittance', 'fresh branch', 'fresh admittance', 'point branch', 'point admittance', 'point ratio', 'note'],
+    ...formRuns.map((r) => [r.gen, fmtN(r.n), r.branchUnknowns ? fmtN(r.branchUnknowns) : '-', r.admittanceUnknowns ? fmtN(r.admittanceUnknowns) : '-',
+      fmt(r.branchFreshMs, 2), fmt(r.admittanceFreshMs, 2), fmt(r.branchPointMs, 3), fmt(r.admittancePointMs, 3),
+      r.branchPointMs && r.admittancePointMs ? `${fmt(r.branchPointMs / r.admittancePointMs, 2)}×` : '-', r.timedOut ? 'stopped' : r.error ?? '']),
+  ]));
+}
+if (tfRuns.length) {
+  log('\ntf on RLC ladders (in-process, ms; first call of a fresh process, then the median of up to five more)');
+  log(pad([
+    ['sections', 'MNA unknowns', 'states', 'poles', 'first', 'warm', 'note'],
+    ...tfRuns.map((r) => [String(r.sections), r.unknowns ? fmtN(r.unknowns) : '-', r.states ? fmtN(r.states) : '-', r.poles !== undefined ? fmtN(r.poles) : '-', fmt(r.firstMs, 1), fmt(r.warmMs, 1), r.timedOut ? 'stopped after 180 s' : r.error ?? '']),
+  ]));
 }
 for (const n of results.notes) log(`note: ${n}`);
 

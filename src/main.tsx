@@ -18,6 +18,7 @@ import { pinPositions } from './model/parts/registry';
 import { overlayProbe, sheetProbe } from './store/probe';
 import { sweepTestHold } from './ui/analysis/sweepRunner';
 import { drawnArrows, drawnTags } from './canvas/drawOverlay';
+import { drawnText } from './canvas/drawPrims';
 import { timeTestHold } from './ui/analysis/timeRunner';
 import './ui/app.css';
 
@@ -74,6 +75,8 @@ const tools = new ToolController(store);
   tags: () => drawnTags.boxes,
   /** the current arrows last drawn (sheet units), and the instant of the time response they show (null: the phasors) */
   arrows: () => ({ instantS: drawnArrows.instantS, arrows: drawnArrows.arrows }),
+  /** the font sizes of the drawing's text last drawn, in sheet units (screen px at 100 % zoom) */
+  textSizes: () => [...drawnText.sizes].sort((a, b) => a - b),
   /** a part's pin in sheet units */
   pin: (ref: string, pin: number) => {
     const p = store.getState().sheet.parts.find((q) => q.ref === ref);

@@ -14,6 +14,7 @@ import type { Sheet } from '../model/sheet';
 import type { DerivedCircuit } from '../model/toGraph';
 import type { Refusal, View } from '../store/types';
 import { THEME } from './theme';
+import { setFont } from './drawPrims';
 
 export interface OverlayInput {
   sheet: Sheet;
@@ -82,7 +83,7 @@ export const drawnArrows: { instantS: number | null; arrows: { from: Point; to: 
 export const drawnTags: { boxes: { x0: number; y0: number; x1: number; y1: number; text: string }[] } = { boxes: [] };
 
 function tag(c: CanvasRenderingContext2D, text: string, x: number, y: number, color: string, align: 'left' | 'right' | 'center' = 'left'): void {
-  c.font = `${TAG_FONT}px ${THEME.mono}`;
+  setFont(c, TAG_FONT, THEME.mono);
   const w = textWidth(c, text) + 8;
   const x0 = align === 'left' ? x : align === 'right' ? x - w : x - w / 2;
   c.fillStyle = THEME.tagFill;
@@ -139,7 +140,8 @@ export function drawOverlay(c: CanvasRenderingContext2D, o: OverlayInput): void 
       // kept inside the view: a tag that would be cut at an edge slides in
       const b = tagBox(t, m);
       const dx = b.x0 < o.visible.x0 + 2 ? o.visible.x0 + 2 - b.x0 : b.x1 > o.visible.x1 - 2 ? o.visible.x1 - 2 - b.x1 : 0;
-      const box = { x0: b.x0 + dx, y0: b.y0, x1: b.x1 + dx, y1: b.y1, text: t.text };
+      const dy = b.y0 < o.visible.y0 + 2 ? o.visible.y0 + 2 - b.y0 : b.y1 > o.visible.y1 - 2 ? o.visible.y1 - 2 - b.y1 : 0;
+      const box = { x0: b.x0 + dx, y0: b.y0 + dy, x1: b.x1 + dx, y1: b.y1 + dy, text: t.text };
       // a tag with no free spot left waits under the pointer: it shows when its node is hovered
       const hovered = t.kind === 'voltage' && o.hoverNode !== null && t.text.startsWith(`${o.hoverNode}: `);
       if (!hovered && drawnTags.boxes.some((q) => q.x0 < box.x1 && box.x0 < q.x1 && q.y0 < box.y1 && box.y0 < q.y1)) continue;
@@ -153,7 +155,7 @@ export function drawOverlay(c: CanvasRenderingContext2D, o: OverlayInput): void 
         c.stroke();
         c.setLineDash([]);
       }
-      tag(c, t.text, t.x + dx, t.y, color, t.align);
+      tag(c, t.text, t.x + dx, t.y + dy, color, t.align);
       drawnTags.boxes.push(box);
     }
   }
@@ -171,7 +173,7 @@ export function drawOverlay(c: CanvasRenderingContext2D, o: OverlayInput): void 
     }
     const spot = culpritSpot(o);
     if (spot) {
-      c.font = `600 11px ${THEME.font}`;
+      setFont(c, 11, THEME.font, '600');
       const text = o.refusal.message.length > 110 ? `${o.refusal.message.slice(0, 107)}…` : o.refusal.message;
       const w = c.measureText(text).width + 12;
       spot.x = Math.max(o.visible.x0 + 4, Math.min(spot.x, o.visible.x1 - w - 4));

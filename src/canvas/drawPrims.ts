@@ -3,6 +3,15 @@ import type { Mark, Prim } from '../model/parts/types';
 import type { Placement } from '../model/geometry';
 import { toSheet } from '../model/geometry';
 
+/** The font sizes (sheet units; screen px at 100 % zoom) of the text drawn since the sheet's last frame began; tests read them. */
+export const drawnText: { sizes: Set<number> } = { sizes: new Set() };
+
+/** Sets the context's font and notes its size in `drawnText`. */
+export function setFont(c: CanvasRenderingContext2D, size: number, family: string, weight = ''): void {
+  c.font = `${weight ? `${weight} ` : ''}${size}px ${family}`;
+  drawnText.sizes.add(size);
+}
+
 export function drawPrims(c: CanvasRenderingContext2D, pl: Placement, prims: Prim[], color: string): void {
   c.save();
   c.translate(pl.x, pl.y);
@@ -46,7 +55,7 @@ export function drawPrims(c: CanvasRenderingContext2D, pl: Placement, prims: Pri
   for (const p of prims) {
     if (p.t !== 'text') continue;
     const q = toSheet(pl, p.x, p.y);
-    c.font = `${p.size}px sans-serif`;
+    setFont(c, p.size, 'sans-serif');
     c.fillText(p.s, q.x, q.y);
   }
 }
@@ -60,7 +69,7 @@ export function drawMarks(c: CanvasRenderingContext2D, marks: Mark[], color: str
       c.arc(m.x, m.y, m.r, 0, Math.PI * 2);
       c.fill();
     } else {
-      c.font = `${m.bold ? '600 ' : ''}${m.size}px ${m.mono ? font : 'sans-serif'}`;
+      setFont(c, m.size, m.mono ? font : 'sans-serif', m.bold ? '600' : '');
       c.textAlign = 'left';
       c.fillText(m.s, m.x, m.y);
     }

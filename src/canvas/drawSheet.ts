@@ -7,7 +7,7 @@ import type { Sheet } from '../model/sheet';
 import { partLabelSpot } from '../model/drawLayout';
 import type { Topology } from '../model/topology';
 import type { View } from '../store/types';
-import { drawMarks, drawPrims } from './drawPrims';
+import { drawMarks, drawnText, drawPrims, setFont } from './drawPrims';
 import { THEME } from './theme';
 
 export function visibleRect(v: View, width: number, height: number): Rect {
@@ -69,6 +69,7 @@ export interface SheetDrawOptions {
 
 export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDrawOptions): void {
   const { view: v, visible } = o;
+  drawnText.sizes.clear();
   c.save();
   c.translate(v.x, v.y);
   c.scale(v.zoom, v.zoom);
@@ -126,7 +127,7 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
     c.fillRect(box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0);
     c.strokeRect(box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0);
     c.fillStyle = bad ? THEME.error : THEME.coupling;
-    c.font = `600 ${COUPLING_TEXT}px ${THEME.font}`;
+    setFont(c, COUPLING_TEXT, THEME.font, '600');
     c.textAlign = 'center';
     c.textBaseline = 'middle';
     c.fillText(text, g.label.x, g.label.y);
@@ -170,10 +171,10 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
     if (detail && def.prefix) {
       const spot = partLabelSpot(p, box);
       c.textAlign = spot.align;
-      c.font = `600 12px ${THEME.font}`;
+      setFont(c, 12, THEME.font, '600');
       c.fillStyle = bad ? THEME.error : THEME.label;
       c.fillText(p.ref, spot.x, spot.y);
-      c.font = `11px ${THEME.font}`;
+      setFont(c, 11, THEME.font);
       c.fillStyle = THEME.value;
       c.fillText(def.valueText(p), spot.x, spot.y + 12);
     }

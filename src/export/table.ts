@@ -10,6 +10,7 @@ import type { SvgOptions } from './options';
 import { PRINT } from './palette';
 import { textWidth, wrap } from './text';
 import { escAttr, oneLine } from './xml';
+import { mutualLimit } from '../model/mutual';
 
 export interface TableRow {
   kind: 'node' | 'part';
@@ -224,7 +225,7 @@ export function couplingSummary(circuit: DerivedCircuit): string[] {
     const ws = cp.windings.map((id) => sheet.parts.find((p) => p.id === id)).filter((p) => !!p);
     if (ws.length !== 2) continue;
     const [l1, l2] = ws.map((w) => w!.value ?? 0);
-    const root = Math.sqrt(l1 * l2);
+    const root = mutualLimit(l1, l2);
     const k = cp.by === 'k' ? cp.value : root > 0 ? cp.value / root : 0;
     const m = cp.by === 'M' ? cp.value : cp.value * root;
     const n = l2 > 0 ? Math.sqrt(l1 / l2) : 0;

@@ -2,6 +2,7 @@ import type { GraphModel, GraphElement, InductorEl, SolveResult, ComplexJson } f
 import { ModelRefusal } from './errors';
 import { SolverSession } from './phasor/session';
 import { dotSign, isWinding, sourceRole } from './elements/registry';
+import { mutualLimit } from '../model/mutual';
 
 /** Complex numbers as plain pairs, for the analyses' answers. */
 export interface Cx { re: number; im: number }
@@ -18,13 +19,13 @@ const cmul = (a: Cx, b: Cx): Cx => ({ re: a.re * b.re - a.im * b.im, im: a.re * 
 export function mutualFromK(k: number, l1: number, l2: number): number {
   if (!(k >= 0 && k <= 1)) throw new RangeError(`k = ${k} is out of range: the coupling coefficient must be between 0 and 1`);
   if (!(l1 > 0 && l2 > 0)) throw new RangeError('both self-inductances must be greater than 0');
-  return k * Math.sqrt(l1 * l2);
+  return k * mutualLimit(l1, l2);
 }
 
 /** k = M / sqrt(L1·L2). Throws a RangeError when M is beyond sqrt(L1·L2). */
 export function kFromMutual(m: number, l1: number, l2: number): number {
   if (!(l1 > 0 && l2 > 0)) throw new RangeError('both self-inductances must be greater than 0');
-  const mMax = Math.sqrt(l1 * l2);
+  const mMax = mutualLimit(l1, l2);
   if (!(m >= 0 && m <= mMax * (1 + 1e-12))) {
     throw new RangeError(`M = ${m} H is out of range: it must be between 0 and sqrt(L1·L2) = ${mMax} H`);
   }
@@ -167,9 +168,10 @@ export interface Reflection {
 }
 
 /**
- * Impedance reflected into a winding's loop by each coupled partner:
- * Z = (ωM)² / Z22 with Z22 = jωL2 + Z_ext2, the partner's loop impedance
- * (standard result; field notes). Independent of the dots.
+ * PAIRWISE, one partner at a time: the impedance (ωM)² / Z22 that each coupled partner alone would
+ * reflect, with Z22 = jωL2 + Z_ext2 its loop impedance (standard result; field notes), ignoring the
+ * partners' coupling to each other. With two or more partners these do not add up to what the winding
+ * sees; use `reflectedImpedance` (the full loop) for that. Independent of the dots.
  */
 export function reflectedImpedances(model: GraphModel, windingId: string, frequencyHz = model.frequencyHz): Reflection[] {
   const w = findElement(model, windingId);
@@ -181,7 +183,7 @@ export function reflectedImpedances(model: GraphModel, windingId: string, freque
     for (const partner of c.windings) {
       if (partner === windingId) continue;
       const p = findElement(model, partner) as InductorEl;
-      const m = c.henries ?? c.k! * Math.sqrt(w.henries * p.henries);
+      const m = c.henries ?? c.k! * mutualLimit(w.henries, p.henries);
       const yExt = externalAdmittance(model, partner, frequencyHz);
       // Y_loop = 1 / (jωL2 + 1/Y_ext) = Y_ext / (1 + jωL2·Y_ext)
       const denom = { re: 1 - omega * p.henries * yExt.im, im: omega * p.henries * yExt.re };
@@ -198,6 +200,61 @@ export function reflectedImpedances(model: GraphModel, windingId: string, freque
     }
   }
   return out;
+}
+
+/** What every partner of a winding, loaded by its own circuit and coupled to the others, reflects into it. */
+export interface LoopReflection {
+  winding: string;
+  /** every winding coupled to it, in the order of the couplings */
+  partners: string[];
+  couplings: string[];
+  /** Z_in − jωL1 at the winding's terminals (its own circuit taken away), in ohms; 0 when no partner loop carries current */
+  reflected: Cx;
+}
+
+/**
+ * The impedance reflected into a winding by all its partners at once: the winding is taken out of its own
+ * circuit and driven by 1 A (every independent source zeroed, the partners left in theirs, coupled to the
+ * winding and to each other), and Z_refl = Z_in − jωL1 = Σ_j jω·M1j·I_j with the dots' signs (coupled-winding
+ * equations, field notes). It is summed from the partners' currents rather than by subtracting jωL1 from
+ * Z_in, so a weak coupling keeps its digits. For one partner it is (ωM)²/Z22.
+ */
+export function reflectedImpedance(model: GraphModel, windingId: string, frequencyHz = model.frequencyHz): LoopReflection {
+  const w = findElement(model, windingId);
+  if (!isWinding(w)) throw new ModelRefusal(`element "${windingId}" is a ${w.kind}, not a winding`, [{ kind: 'element', id: windingId }]);
+  const signed = new Map<string, number>();
+  const couplings: string[] = [];
+  for (const c of model.couplings ?? []) {
+    if (!c.windings.includes(windingId)) continue;
+    couplings.push(c.id);
+    for (const partner of c.windings) {
+      if (partner === windingId) continue;
+      const p = findElement(model, partner) as InductorEl;
+      const m = c.henries ?? c.k! * mutualLimit(w.henries, p.henries);
+      signed.set(partner, (signed.get(partner) ?? 0) + m * dotSign(w) * dotSign(p));
+    }
+  }
+  const partners = [...signed.keys()];
+  const omega = 2 * Math.PI * frequencyHz;
+  if (partners.length === 0 || omega === 0) return { winding: windingId, partners, couplings, reflected: { re: 0, im: 0 } };
+  const zeroed = withSourcesZeroed(model);
+  const a = uniqueNode(model, `${windingId}_a`);
+  const b = uniqueNode({ ...model, elements: [...model.elements, { ...w, nodes: [a, a] }] }, `${windingId}_b`);
+  const drive = uniqueId(model, `${windingId}_drive`);
+  const elements: GraphElement[] = zeroed.elements.map((e) => (e.id === windingId ? { ...(e as InductorEl), nodes: [a, b] } : e));
+  // 1 A out of the drive's nodes[1] = a, into the winding's first terminal
+  elements.push({ id: drive, kind: 'current-source', nodes: [b, a], magnitude: 1, phaseDeg: 0 });
+  const stillThere = elements.some((e) => e.id !== drive && e.id !== windingId && e.nodes.includes(model.ground));
+  const res = new SolverSession({ ...zeroed, elements, ground: stillThere ? model.ground : b }).solveAt(frequencyHz);
+  let re = 0;
+  let im = 0;
+  for (const [partner, m] of signed) {
+    const i = (res.elements[partner] as { current: ComplexJson }).current;
+    // jω·M·I
+    re -= omega * m * i.im;
+    im += omega * m * i.re;
+  }
+  return { winding: windingId, partners, couplings, reflected: { re: re + 0, im: im + 0 } };
 }
 
 // ---------------------------------------------------------------- T-equivalent
@@ -238,7 +295,7 @@ export function tEquivalent(model: GraphModel, couplingId: string, pair?: [strin
   }
   const w1 = findElement(model, id1) as InductorEl;
   const w2 = findElement(model, id2) as InductorEl;
-  const mag = c.henries ?? c.k! * Math.sqrt(w1.henries * w2.henries);
+  const mag = c.henries ?? c.k! * mutualLimit(w1.henries, w2.henries);
   const shared = w1.nodes.find((n) => w2.nodes.includes(n)) ?? null;
   let common1: string;
   let common2: string;

@@ -2,6 +2,7 @@ import type { GraphModel, InductorEl, SolveResult, TwoTerminalResult, Coupling }
 import { ModelRefusal } from './errors';
 import { dotSign } from './elements/registry';
 import type { Cx } from './analysis';
+import { mutualLimit } from '../model/mutual';
 
 /**
  * What a coupled pair is doing at the solved currents: flux linkages, stored
@@ -26,7 +27,7 @@ export interface PairState {
 }
 
 export function mutualOf(c: Coupling, l1: number, l2: number): number {
-  return c.henries ?? c.k! * Math.sqrt(l1 * l2);
+  return c.henries ?? c.k! * mutualLimit(l1, l2);
 }
 
 /**
@@ -62,7 +63,7 @@ export function pairState(model: GraphModel, result: SolveResult, couplingId: st
     l1: w1.henries,
     l2: w2.henries,
     m,
-    k: m / Math.sqrt(w1.henries * w2.henries),
+    k: m / mutualLimit(w1.henries, w2.henries),
     flux,
     energyJ,
     interaction,

@@ -4,6 +4,7 @@ import { nameProblem, shownName } from '../model/names';
 import { ModelRefusal } from './errors';
 import { ELEMENT_DEFS, ELEMENT_KINDS, isElementKind } from './elements/registry';
 import { finite, nameRule, nonNegative } from './elements/schema';
+import { mutualLimit } from '../model/mutual';
 export { VALUE_RANGE } from './elements/schema';
 
 /**
@@ -165,7 +166,7 @@ export function parseGraphModel(input: unknown): GraphModel {
         throw new ModelRefusal(`${name}: "henries" couples exactly two windings, got ${windings.length}; use "k" for three or more`, [{ kind: 'coupling', id: rid }]);
       }
       const [l1, l2] = windings.map((w) => (byId.get(w) as { henries: number }).henries);
-      const mMax = Math.sqrt(l1 * l2);
+      const mMax = mutualLimit(l1, l2);
       if (henries < 0 || henries > mMax * (1 + 1e-12)) {
         throw new ModelRefusal(`${name}: M = ${henries} H is out of range; it must be between 0 and sqrt(L1·L2) = ${fmt(mMax)} H (k = ${fmt(henries / mMax)} > 1)`, [{ kind: 'coupling', id: rid }]);
       }

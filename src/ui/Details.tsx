@@ -11,6 +11,7 @@ import { Field, quantity } from './Field';
 import { useEditor, useEditorState } from './editorContext';
 import { SwitchEditor, WaveformEditor } from './TimeEditors';
 import { parseEntry } from './valueEntry';
+import { mutualLimit } from '../model/mutual';
 
 export function Details() {
   const selection = useEditorState((s) => s.selection);
@@ -220,12 +221,12 @@ function CouplingDetails({ c }: { c: SheetCoupling }) {
 /** M = k·sqrt(L1·L2) for the two windings (graph-model contract). */
 function mutualFromK(sheet: { parts: Part[] }, c: SheetCoupling): number {
   const [a, b] = c.windings.map((w) => sheet.parts.find((p) => p.id === w)?.value ?? 0);
-  return c.by === 'k' ? c.value * Math.sqrt(a * b) : c.value;
+  return c.by === 'k' ? c.value * mutualLimit(a, b) : c.value;
 }
 
 /** k = M / sqrt(L1·L2), at most 1. */
 function kFromM(sheet: { parts: Part[] }, c: SheetCoupling): number {
   if (c.by === 'k') return c.value;
   const [a, b] = c.windings.map((w) => sheet.parts.find((p) => p.id === w)?.value ?? 0);
-  return a > 0 && b > 0 ? Math.min(1, c.value / Math.sqrt(a * b)) : 0.9;
+  return a > 0 && b > 0 ? Math.min(1, c.value / mutualLimit(a, b)) : 0.9;
 }

@@ -10,7 +10,7 @@ import { hasValueTarget, withValue } from '../model/valueTarget';
 import type { CompareAnswer, HarmonicAnswer, InspectAnswer, PowerAnswer, SweepQuantity, SweepSpec, TAnswer, TransferAnswer } from './protocol';
 import {
   compareDotFlip, connectionOf, createSession, frequencyGrid, harmonicSteadyState, pairState, parseGraphModel, powerSummary,
-  reflectedImpedances, solveGraph, sourceImpedance, substituteTEquivalent, tEquivalent, transferFunction, type SolverSession,
+  reflectedImpedance, solveGraph, sourceImpedance, substituteTEquivalent, tEquivalent, transferFunction, type SolverSession,
 } from '../solver';
 import { sourceRole } from '../solver/elements/registry';
 
@@ -36,7 +36,7 @@ export function inspect(raw: GraphModel, received: SolveResult, coupling: string
   const result = withNameTables(received);
   const [a, b] = couplingPair(model, coupling, pair);
   const st = pairState(model, result, coupling, [a, b]);
-  const refl = (w: string, partner: string): C => reflectedImpedances(model, w).find((r) => r.partner === partner)?.reflected ?? ZERO;
+  const refl = [reflectedImpedance(model, a), reflectedImpedance(model, b)];
   const conn = connectionOf(model, coupling, [a, b]);
   const sources = model.elements
     .filter((e) => sourceRole(e) !== undefined)
@@ -49,7 +49,8 @@ export function inspect(raw: GraphModel, received: SolveResult, coupling: string
     });
   return {
     windings: [a, b], l1: st.l1, l2: st.l2, m: st.m, k: st.k, flux: st.flux, energyJ: st.energyJ, interaction: st.interaction,
-    reflected: [refl(a, b), refl(b, a)],
+    reflected: [refl[0].reflected, refl[1].reflected],
+    reflectedFrom: [refl[0].partners, refl[1].partners],
     connection: conn,
     sources,
     frequencyHz: model.frequencyHz,

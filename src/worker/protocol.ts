@@ -36,8 +36,10 @@ export interface PortZ { z: ComplexJson | null }
 
 /** The pair's state at the solved currents (the solver's PairState), with what the inspector shows around it. */
 export type InspectAnswer = Omit<PairState, 'coupling' | 'mutualTerm'> & {
-  /** reflected impedance into each winding's loop, (ωM)²/Z22 */
+  /** impedance reflected into each winding by all its partners (the full loop, Z_in − jωL; (ωM)²/Z22 for one partner) */
   reflected: [ComplexJson, ComplexJson];
+  /** the partners each of those comes from (more than the pair's other winding when a winding has several) */
+  reflectedFrom: [string[], string[]];
   connection: { kind: 'series' | 'parallel'; sense: 'aiding' | 'opposing'; inductance: number; otherSense: number } | null;
   sources: { id: string; z: ComplexJson | null }[];
   frequencyHz: number;

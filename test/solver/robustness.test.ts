@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { solveGraph } from '../../src/solver';
+import { kFromMutual, ModelRefusal, mutualFromK, solveGraph } from '../../src/solver';
 import type { GraphModel } from '../../src/model/graph';
 import { model, two } from '../helpers';
 import { preciseSolve } from '../reference/precise-mna';
@@ -185,5 +185,59 @@ describe('parts with both terminals on one node', () => {
     ]);
     const r = againstReference(m);
     expect(two(r, 'R1').current.re).toBeCloseTo(0.1, 15);
+  });
+});
+
+describe('refusals that name what has no answer', () => {
+  const refusal = (m: GraphModel): ModelRefusal => {
+    try {
+      solveGraph(m);
+    } catch (e) {
+      if (e instanceof ModelRefusal) return e;
+      throw e;
+    }
+    throw new Error('expected a refusal');
+  };
+  // f = 1/(2π) Hz rounds to ω = 1 exactly, so 1 H with 1 F is an exact resonance ω0 = 1/√(LC) (closed form)
+  const f0 = 1 / (2 * Math.PI);
+
+  it('an exact series LC resonance across a voltage source names the L and the C and the resistance that would break it', () => {
+    const e = refusal(model(f0, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'L1', kind: 'inductor', nodes: ['a', 'b'], henries: 1 },
+      { id: 'C1', kind: 'capacitor', nodes: ['b', 'gnd'], farads: 1 },
+    ]));
+    expect(e.message).toMatch(/"L1" and "C1" are in exact resonance .*across the ideal voltage source "V1", and lossless parts in exact resonance have a defined answer only if a resistance breaks it/);
+    expect(e.message).not.toMatch(/contradict/);
+    expect(e.culprits).toEqual(expect.arrayContaining([{ kind: 'element', id: 'L1' }, { kind: 'element', id: 'C1' }]));
+  });
+
+  it('the same resonance with 1 mΩ in series solves: I = V/R (Z = R at ω0, closed form)', () => {
+    const r = solveGraph(model(f0, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'c'], ohms: 1e-3 },
+      { id: 'L1', kind: 'inductor', nodes: ['c', 'b'], henries: 1 },
+      { id: 'C1', kind: 'capacitor', nodes: ['b', 'gnd'], farads: 1 },
+    ]));
+    expect(two(r, 'R1').current.re).toBeCloseTo(1000, 6);
+  });
+
+  it('two k = 1 windings each driven by a voltage source name the coupling, even where rounding leaves the LU a pivot', () => {
+    // 0.1 H and 0.4 H at k = 1 (turns ratio 1:2) with 10 V on each: V2 = 2·V1 is contradicted (ideal transformer law)
+    const e = refusal(model(50, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 10, phaseDeg: 0 },
+      { id: 'La', kind: 'inductor', nodes: ['a', 'gnd'], henries: 0.1 },
+      { id: 'V2', kind: 'voltage-source', nodes: ['c', 'gnd'], magnitude: 10, phaseDeg: 0 },
+      { id: 'Lb', kind: 'inductor', nodes: ['c', 'gnd'], henries: 0.4 },
+    ], [{ id: 'K1', windings: ['La', 'Lb'], k: 1 }]));
+    expect(e.message).toMatch(/coupling "K1" \(windings "La" and "Lb", k = 1\)/);
+    expect(e.culprits).toContainEqual({ kind: 'coupling', id: 'K1' });
+  });
+
+  it('M = k·√L1·√L2 holds for inductances whose product would overflow or underflow', () => {
+    // k·√(L1·L2) with L1·L2 = 1e400 is Infinity and with 1e-400 is 0 in doubles (IEEE 754, from memory)
+    expect(mutualFromK(0.5, 1e200, 1e200) / 5e199).toBeCloseTo(1, 14);
+    expect(mutualFromK(0.5, 1e-200, 1e-200) / 5e-201).toBeCloseTo(1, 14);
+    expect(kFromMutual(5e199, 1e200, 1e200)).toBeCloseTo(0.5, 14);
   });
 });

@@ -83,6 +83,23 @@ describe('sweep quantities against closed forms', () => {
 });
 
 describe('coupling answers', () => {
+  it('with three windings the inspector shows the full loop, naming both partners', () => {
+    // windings of 1, 4, 9 mH at k = 0.5, loads 20 Ω and 50 Ω, 5 kHz: Z_in − jωL1 = 1.16 − 10.34j Ω
+    // (checked against a mathjs solve of the loop equations in test/solver/reflected-loop.test.ts)
+    const m = model(5000, [
+      { id: 'V1', kind: 'voltage-source', nodes: ['p', 'gnd'], magnitude: 1, phaseDeg: 0 },
+      { id: 'L1', kind: 'inductor', nodes: ['p', 'gnd'], henries: 1e-3 },
+      { id: 'L2', kind: 'inductor', nodes: ['s2', 'r2'], henries: 4e-3 },
+      { id: 'R2', kind: 'resistor', nodes: ['s2', 'r2'], ohms: 20 },
+      { id: 'L3', kind: 'inductor', nodes: ['s3', 'r3'], henries: 9e-3 },
+      { id: 'R3', kind: 'resistor', nodes: ['s3', 'r3'], ohms: 50 },
+    ], [{ id: 'K', windings: ['L1', 'L2', 'L3'], k: 0.5 }]);
+    const a = inspect(m, solveGraph(m), 'K', ['L1', 'L2']);
+    expect(a.reflectedFrom[0]).toEqual(['L2', 'L3']);
+    expect(a.reflected[0].re).toBeCloseTo(1.16, 2);
+    expect(a.reflected[0].im).toBeCloseTo(-10.34, 2);
+  });
+
   it('reflected impedance (ωM)²/(jωL2 + R2) and what the source sees', () => {
     const m = loaded();
     const a = inspect(m, solveGraph(m), 'K');

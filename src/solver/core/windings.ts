@@ -7,6 +7,7 @@
 import type { GraphModel, InductorEl } from '../../model/graph';
 import { ModelRefusal } from '../errors';
 import { defOf, dotSign } from '../elements/registry';
+import { mutualLimit } from '../../model/mutual';
 
 /** A mutual term between two inductors, signed by their dots: M·d_i·d_j. */
 export interface Mutual {
@@ -44,7 +45,7 @@ export function collectMutuals(model: GraphModel): Mutual[] {
         const b = index.get(ids[j])!;
         const ea = model.elements[a] as InductorEl;
         const eb = model.elements[b] as InductorEl;
-        const magnitude = c.henries !== undefined ? c.henries : c.k! * Math.sqrt(ea.henries * eb.henries);
+        const magnitude = c.henries !== undefined ? c.henries : c.k! * mutualLimit(ea.henries, eb.henries);
         mutuals.push({ a, b, m: magnitude * dotSign(ea) * dotSign(eb), magnitude, coupling: c.id });
       }
     }
@@ -99,7 +100,7 @@ function checkPositiveSemidefinite(model: GraphModel, mutuals: Mutual[]): void {
       const j = pos.get(mu.b)!;
       const la = (model.elements[mu.a] as InductorEl).henries;
       const lb = (model.elements[mu.b] as InductorEl).henries;
-      const kk = mu.m / Math.sqrt(la * lb);
+      const kk = mu.m / mutualLimit(la, lb);
       a[i * n + j] += kk;
       a[j * n + i] += kk;
       couplingsInGroup.add(mu.coupling);

@@ -9,18 +9,21 @@ import { nameTable } from '../../model/names';
 import { ModelRefusal } from '../errors';
 import { buildTopology, type Topology } from '../core/topology';
 import { checkSolvable } from '../core/checks';
-import { collectMutuals } from '../core/windings';
+import { collectMutuals, reciprocalInductances } from '../core/windings';
 import { buildDescriptor, rightHandSide, smallResistors, type Descriptor } from '../core/descriptor';
-import { defOf } from '../elements/registry';
+import { defOf, isWinding, sourceRole } from '../elements/registry';
+import { exactResonance, perfectCouplings, quotedList } from './singularHints';
 import { analyze, ComplexSparseLU, type LuOptions, type LuSymbolic } from '../lu-backend';
 import { SingularMatrixError, type CscPattern } from '../sparse/types';
 
 /**
- * 'ac': windings stamped through the reciprocal inductance matrix where that
- * is well conditioned (fewer unknowns); 'dc': the full branch form, which 0 Hz
- * needs (an inductance is a short there).
+ * 'ac': every winding keeps its branch current (row V − jωL·I = 0), small resistors get one too; 'dc': the
+ * full branch form, which 0 Hz needs (an inductance is a short there); 'admittance': windings stamped through
+ * the reciprocal inductance matrix Γ/(jω) where that is well conditioned (fewer unknowns, but digits lost when
+ * ωL is small beside its surroundings), kept as the independent second writing that tests and the benchmark
+ * compare the branch form with.
  */
-export type MnaForm = 'ac' | 'dc';
+export type MnaForm = 'ac' | 'dc' | 'admittance';
 
 /**
  * Rows and columns equilibrated before pivoting and before the singular test (sparse/scaling.ts), so that
@@ -30,6 +33,11 @@ const LU_OPTIONS: LuOptions = { scale: 'rows-cols' };
 
 /** Condition number above which a solve warns: 1e10 leaves about six of sixteen digits (common practice). */
 const PRECISION_KAPPA = 1e10;
+/**
+ * Beyond this condition number (about 1/(100·ε), ε = 2.2e-16 the double precision's unit roundoff) a model
+ * with a k = 1 coupling or an exact LC resonance is taken as singular: rounding alone kept its LU from a zero pivot.
+ */
+const SINGULAR_KAPPA = 4e13;
 
 /** Raw solution at one frequency: node voltages and branch currents as typed arrays. */
 export interface RawSolution {
@@ -84,7 +92,10 @@ export class SolverSession {
     // every winding keeps its branch current at every frequency: rebuilding it from node voltages through
     // 1/(jωL) (the reciprocal form, core/windings.ts) cancels digits when ωL is small beside its surroundings
     // (error ~ 1e-16·|Z around|/|ωL|), while the branch row V − jωL·I = 0 yields I exactly
-    this.mna = buildDescriptor(model, this.topo, mutuals, { branchResistors: smallResistors(model, this.topo) });
+    this.mna = buildDescriptor(model, this.topo, mutuals, {
+      branchResistors: smallResistors(model, this.topo),
+      reduced: form === 'admittance' ? reciprocalInductances(model, mutuals) : undefined,
+    });
     const n = this.mna.n;
     const srcRe = new Float64Array(model.elements.length);
     const srcIm = new Float64Array(model.elements.length);
@@ -140,7 +151,7 @@ export class SolverSession {
       checkSolvable(this.model, this.topo, frequencyHz);
       this.checked.add(dc);
     }
-    if (dc && this.form === 'ac') {
+    if (dc && this.form !== 'dc') {
       this.dcTwin ??= new SolverSession(this.model, undefined, 'dc');
       return this.dcTwin.solveRaw(0, sources);
     }
@@ -154,7 +165,7 @@ export class SolverSession {
     const omega = 2 * Math.PI * frequencyHz;
     const { g, c, inv } = mna;
     re.set(g);
-    if (this.form === 'ac') {
+    if (this.form !== 'dc') {
       const invOmega = 1 / omega;
       for (let s = 0; s < im.length; s++) im[s] = omega * c[s] - inv[s] * invOmega;
     } else {
@@ -203,8 +214,11 @@ export class SolverSession {
   }
 
   solveAt(frequencyHz: number): SolveResult {
-    const result = this.toResult(this.solveRaw(frequencyHz));
-    const warning = (frequencyHz === 0 && this.dcTwin ? this.dcTwin : this).precisionWarning(frequencyHz);
+    const raw = this.solveRaw(frequencyHz);
+    const twin = frequencyHz === 0 && this.dcTwin ? this.dcTwin : this;
+    twin.refuseRoundedSingular(frequencyHz);
+    const result = this.toResult(raw);
+    const warning = twin.precisionWarning(frequencyHz);
     if (warning) result.warnings.push(warning);
     return result;
   }
@@ -222,6 +236,18 @@ export class SolverSession {
     return `${at.kind} "${at.id}": the circuit's values span so many decades at ${frequencyHz} Hz that the results may have lost more than six digits (condition number about ${Number(kappa.toPrecision(2))}); check the values of the parts at it`;
   }
 
+  /**
+   * A k = 1 coupling under contradicting ideal voltages, or an exact resonance, is singular; rounding can still
+   * give its LU nonzero pivots and an answer of 1e15 A. Such a model whose condition number is beyond
+   * SINGULAR_KAPPA is refused as the zero pivot would have been.
+   */
+  private refuseRoundedSingular(frequencyHz: number): void {
+    if (!this.lu || !this.factored) return;
+    if (!perfectCouplings(this.model).length && !exactResonance(this.model, frequencyHz)) return;
+    const { kappa, column } = this.lu.conditionEstimate();
+    if (kappa > SINGULAR_KAPPA) throw this.singularRefusal(column, frequencyHz);
+  }
+
   private singularRefusal(column: number, frequencyHz: number): ModelRefusal {
     const extreme = this.extremeEntry();
     if (extreme) {
@@ -232,6 +258,29 @@ export class SolverSession {
       );
     }
     const what = this.mna.unknownLabel(column);
+    const resonance = exactResonance(this.model, frequencyHz);
+    if (resonance) {
+      const { inductor: l, capacitor: cap } = resonance;
+      const el = what.kind === 'element' ? this.model.elements.find((e) => e.id === what.id) : undefined;
+      const subject = what.kind === 'node' ? `node "${what.id}": its voltage` : `element "${what.id}" (${el!.kind}): its current`;
+      const across = el && sourceRole(el) === 'voltage' ? ` across the ideal voltage source "${el.id}"` : el && sourceRole(el) === 'current' ? ` driven by the ideal current source "${el.id}"` : '';
+      return new ModelRefusal(
+        `${subject} is undetermined at ${frequencyHz} Hz because "${l}" and "${cap}" are in exact resonance there (ω²·L·C = 1)${across}, and lossless parts in exact resonance have a defined answer only if a resistance breaks it; add a resistance to "${l}" or "${cap}" (in series or across), or change the frequency`,
+        [what, { kind: 'element', id: l }, { kind: 'element', id: cap }],
+      );
+    }
+    // a k = 1 coupling whose windings touch the culprit (a node of theirs, or a part on one of their nodes)
+    const touched = new Set(what.kind === 'node' ? [what.id] : this.model.elements.find((e) => e.id === what.id)!.nodes);
+    const byId = new Map(this.model.elements.map((e) => [e.id, e]));
+    const perfect = perfectCouplings(this.model).filter((c) => c.windings.some((w) => byId.get(w)!.nodes.some((n) => touched.has(n))));
+    if (perfect.length && !(what.kind === 'element' && isWinding(byId.get(what.id)!))) {
+      const named = perfect.map((c) => `"${c.id}" (windings ${quotedList(c.windings)}, k = 1)`).join(', ');
+      const subject = what.kind === 'node' ? `node "${what.id}": its voltage` : `element "${what.id}" (${byId.get(what.id)!.kind}): its current`;
+      return new ModelRefusal(
+        `${subject} is undetermined at ${frequencyHz} Hz; the coupling ${named} ties the windings' voltages to their turns ratio, so ideal voltages driving them that contradict it have no answer; lower k below 1 or add a series resistance`,
+        [what, ...perfect.map((c) => ({ kind: 'coupling' as const, id: c.id }))],
+      );
+    }
     if (what.kind === 'node') {
       return new ModelRefusal(
         `node "${what.id}": its voltage is undetermined at ${frequencyHz} Hz (nothing fixes it relative to the rest of the circuit, or an exact resonance of lossless parts shorts or opens it); add a resistor from it to the circuit or change the frequency`,

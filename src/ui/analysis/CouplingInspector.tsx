@@ -1,5 +1,5 @@
 /** Coupling inspector: L1, L2, M and k (M from k or k from M), and the pair's state at the solved currents. */
-import { useEffect, useState } from 'react';
+import { Fragment, useEffect, useState } from 'react';
 import type { InspectAnswer } from '../../worker/protocol';
 import * as E from '../../model/edits';
 import { formatEditable, formatSI } from '../../model/quantity';
@@ -13,6 +13,10 @@ import { graphCouplingId, selectedCoupling, useSolved } from './useSolved';
 import { kRangeProblem, mRangeProblem } from './couplingRange';
 import { pairEquations } from '../../model/pairEquations';
 import './analysis.css';
+import { mutualLimit } from '../../model/mutual';
+
+/** "L2 and L3", "L2, L3 and L4". */
+const listed = (names: string[]) => (names.length < 2 ? names.join('') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`);
 
 export function CouplingInspector() {
   const couplingId = useEditorState(selectedCoupling);
@@ -30,7 +34,7 @@ function Inspector({ couplingId }: { couplingId: string }) {
   const windings = c.windings.map((w) => sheet.parts.find((p) => p.id === w)!);
   const two = windings.length === 2;
   const [l1, l2] = [windings[0]?.value ?? 0, windings[1]?.value ?? 0];
-  const mMax = Math.sqrt(l1 * l2);
+  const mMax = mutualLimit(l1, l2);
   const k = c.by === 'k' ? c.value : mMax > 0 ? c.value / mMax : 0;
   const m = c.by === 'M' ? c.value : c.value * mMax;
   const gid = solved ? graphCouplingId(solved.circuit.couplingOfId, couplingId) : null;
@@ -90,8 +94,12 @@ function Inspector({ couplingId }: { couplingId: string }) {
             <dt>Flux linkage λ of {answer.windings[1]}</dt><dd>{polarText(answer.flux[1], 'Wb')}</dd>
             <dt>Stored energy (time average)</dt><dd data-testid="inspector-energy">{formatSI(answer.energyJ, 'J', 4)}</dd>
             <dt>The two currents</dt><dd data-testid="inspector-interaction">{answer.interaction === 'aiding' ? 'aid each other’s flux' : answer.interaction === 'opposing' ? 'oppose each other’s flux' : 'neither aid nor oppose on average (they are 90° apart, or one is zero)'}</dd>
-            <dt>Reflected into {answer.windings[0]}’s loop</dt><dd>{polarText(answer.reflected[0], 'Ω')}<br /><small>{rectangularText(answer.reflected[0], 'Ω')}</small></dd>
-            <dt>Reflected into {answer.windings[1]}’s loop</dt><dd>{polarText(answer.reflected[1], 'Ω')}<br /><small>{rectangularText(answer.reflected[1], 'Ω')}</small></dd>
+            {[0, 1].map((t) => (
+              <Fragment key={t}>
+                <dt>Reflected into {answer.windings[t]}{answer.reflectedFrom[t].length > 1 ? ` by ${listed(answer.reflectedFrom[t])} together` : '’s loop'}</dt>
+                <dd data-testid={`inspector-reflected-${t}`}>{polarText(answer.reflected[t], 'Ω')}<br /><small>{rectangularText(answer.reflected[t], 'Ω')}</small></dd>
+              </Fragment>
+            ))}
             {answer.connection && (
               <>
                 <dt>Connected in {answer.connection.kind}, {answer.connection.sense}</dt>
@@ -105,7 +113,9 @@ function Inspector({ couplingId }: { couplingId: string }) {
               <SourceRow key={s.id} id={s.id} z={s.z} />
             ))}
           </dl>
-          <p className="muted small">Reflected impedance (ωM)²/Z₂₂ with Z₂₂ the partner loop’s own impedance; it does not depend on the dots.</p>
+          <p className="muted small">{answer.reflectedFrom.some((p) => p.length > 1)
+            ? 'Reflected impedance Z_in − jωL from the full loop: the winding taken out of its circuit and driven, every partner loaded by its own circuit and coupled to the others (not a sum of pairwise (ωM)²/Z₂₂, which would ignore the partners’ coupling to each other).'
+            : 'Reflected impedance (ωM)²/Z₂₂ with Z₂₂ the partner loop’s own impedance; it does not depend on the dots.'}</p>
         </div>
       )}
     </section>

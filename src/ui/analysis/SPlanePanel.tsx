@@ -6,14 +6,17 @@
  * ζ and Q on hover and in a table, and the natural frequencies of the whole
  * circuit, those this pair does not see marked.
  */
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { useStore } from 'zustand';
 import type { ComplexJson } from '../../model/graph';
 import { formatSI } from '../../model/quantity';
 import { sourceKindOf } from '../../model/elementFacts';
 import type { TransferAnswer } from '../../worker/protocol';
 import { analysisClient } from './client';
-import { factoredText, polynomialText, rootFacts, rootText } from './splane';
+import { factoredText, polynomialText, rootFacts, rootText, sPlaneCsv } from './splane';
 import { useSolved } from './useSolved';
+import { useEditorState } from '../editorContext';
+import { sPlaneStore, type SPlaneState } from '../../store/sPlaneStore';
 
 const W = 420;
 const H = 300;
@@ -27,7 +30,7 @@ function factsText(p: ComplexJson): string {
   return `s = ${rootText(p)} rad/s: ω0 = ${formatSI(f.omega0, 'rad/s', 4)}, f = ${formatSI(f.hz, 'Hz', 4)}${zeta}${q}`;
 }
 
-function SPlane({ answer }: { answer: TransferAnswer }) {
+function SPlane({ answer, pair }: { answer: TransferAnswer; pair: string }) {
   const all = [...answer.poles, ...answer.zeros, ...answer.naturalFrequencies];
   const span = Math.max(1e-12, ...all.map((p) => Math.max(Math.abs(p.re), Math.abs(p.im)))) * 1.15;
   const x = (re: number) => W / 2 + (re / span) * (W / 2 - PAD);
@@ -35,7 +38,7 @@ function SPlane({ answer }: { answer: TransferAnswer }) {
   const [hover, setHover] = useState<string | null>(null);
   return (
     <figure className="splane">
-      <svg width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" aria-label="Poles and zeros on the s-plane" data-testid="splane-plot">
+      <svg width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`Poles and zeros of H(s), ${pair}`} data-testid="splane-plot">
         <rect x={0} y={0} width={W / 2} height={H} fill="currentColor" opacity={0.04} />
         <line x1={PAD / 2} y1={H / 2} x2={W - PAD / 2} y2={H / 2} stroke="currentColor" opacity={0.5} />
         <line x1={W / 2} y1={PAD / 2} x2={W / 2} y2={H - PAD / 2} stroke="currentColor" strokeWidth={1.6} />
@@ -81,38 +84,50 @@ export function SPlanePanel() {
     ]);
     return [...nodes, ...parts];
   }, [solved]);
-  const [input, setInput] = useState('');
-  const [output, setOutput] = useState('');
+  const { input, output, picking, pickNote, answer, markOnSweep } = useStore(sPlaneStore);
+  const setInput = (v: string) => sPlaneStore.setState({ input: v, picking: null, pickNote: '' });
+  const setOutput = (v: string) => sPlaneStore.setState({ output: v, picking: null, pickNote: '' });
   const inp = sources.find((s) => s.id === input)?.id ?? sources[0]?.id ?? '';
   const out = outputs.find((o) => o.value === output)?.value ?? outputs[outputs.length - 1]?.value ?? '';
-  const [answer, setAnswer] = useState<TransferAnswer | null>(null);
   const [error, setError] = useState<string | null>(null);
   useEffect(() => {
     if (!model || !inp || !out) return;
     let live = true;
     setError(null);
-    analysisClient().transfer(model, inp, out).then((a) => live && (setAnswer(a), setError(null)), (e: Error) => live && (setAnswer(null), setError(e.message)));
+    analysisClient().transfer(model, inp, out).then(
+      (a) => { if (live) { sPlaneStore.setState({ answer: a, model }); setError(null); } },
+      (e: Error) => { if (live) { sPlaneStore.setState({ answer: null, model: null }); setError(e.message); } },
+    );
     return () => { live = false; };
   }, [model, inp, out]);
+  const sourceIds = useMemo(() => sources.map((s) => s.id), [sources]);
+  usePickOnSheet(sourceIds, out);
   if (!solved) return <p className="muted">Waiting for the solve of the latest edit…</p>;
   if (!sources.length) return <p className="muted">The s-domain view needs a voltage or current source as the input; the sheet has none.</p>;
   const current = answer && answer.input === inp && answer.output === out ? answer : null;
+  const outLabel = outputs.find((o) => o.value === out)?.label ?? out;
   return (
     <div className="sdomain" data-testid="sdomain-panel">
       <div className="row-buttons">
         <label>Input <select data-testid="tf-input" value={inp} onChange={(e) => setInput(e.target.value)}>
           {sources.map((s) => <option key={s.id} value={s.id}>{s.id}</option>)}
         </select></label>
+        <PickButton which="input" picking={picking} />
         <label>Output <select data-testid="tf-output" value={out} onChange={(e) => setOutput(e.target.value)}>
           {outputs.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
         </select></label>
+        <PickButton which="output" picking={picking} />
+        <button type="button" className="cmd" data-testid="tf-csv" disabled={!current} onClick={() => current && download(sPlaneCsv(current))}>CSV</button>
+        <label className="muted"><input type="checkbox" data-testid="tf-mark-sweep" checked={markOnSweep} onChange={(e) => sPlaneStore.setState({ markOnSweep: e.target.checked })} /> mark the poles on the sweep</label>
       </div>
+      {picking && <p className="muted" role="status" data-testid="tf-pick-hint">{picking === 'input' ? 'Click a voltage or current source on the drawing to make it the input.' : 'Click a part on the drawing for its voltage (or current, if the output is a current now), or a wire for its node’s voltage.'}</p>}
+      {pickNote && <p className="field-error" role="alert" data-testid="tf-pick-note">{pickNote}</p>}
       <p className="muted">H(s) = Y(s)/U(s) with every other source set to zero and every initial value zero; roots in rad/s. On the jω axis H(j2πf) is the phasor ratio the solve gives at f.</p>
       {error && <p className="field-error" role="alert">{error}</p>}
       {!error && !current && <p className="muted">Working out H(s)…</p>}
       {current && (
         <div className="side-by-side">
-          <SPlane answer={current} />
+          <SPlane answer={current} pair={`from ${inp} to ${outLabel}`} />
           <div>
             <p data-testid="tf-factored"><code>{factoredText(current.gain, current.zeros, current.poles)}</code></p>
             {current.gain !== 0 && (
@@ -145,4 +160,60 @@ export function SPlanePanel() {
       )}
     </div>
   );
+}
+
+function download(text: string) {
+  const a = document.createElement('a');
+  a.href = URL.createObjectURL(new Blob([text], { type: 'text/csv' }));
+  a.download = 'transfer-function.csv';
+  a.click();
+  setTimeout(() => URL.revokeObjectURL(a.href), 1000);
+}
+
+function PickButton({ which, picking }: { which: 'input' | 'output'; picking: SPlaneState['picking'] }) {
+  const on = picking === which;
+  return (
+    <button type="button" className="cmd" aria-pressed={on} data-testid={`tf-pick-${which}`}
+      title={on ? 'Stop picking' : `Pick the ${which} on the drawing`}
+      onClick={() => sPlaneStore.setState({ picking: on ? null : which, pickNote: '' })}>
+      {on ? 'Picking…' : 'Pick on sheet'}
+    </button>
+  );
+}
+
+/**
+ * While a pick is on, the next part or wire selected on the drawing becomes the input (a source) or the
+ * output (a part's voltage, or its current when the output was a current; a wire's node voltage).
+ */
+function usePickOnSheet(sourceIds: string[], out: string) {
+  const picking = useStore(sPlaneStore, (s) => s.picking);
+  const selection = useEditorState((s) => s.selection);
+  const sheet = useEditorState((s) => s.sheet);
+  const solved = useSolved();
+  const atStart = useRef<string[] | null>(null);
+  useEffect(() => {
+    atStart.current = picking ? selection : null;
+  }, [picking]); // the selection when the pick starts, not as it changes
+  useEffect(() => {
+    if (!picking || !solved || selection === atStart.current || selection.length !== 1) return;
+    const id = selection[0];
+    atStart.current = selection; // answered once
+    let element: string | undefined;
+    for (const [e, part] of solved.circuit.partOfElement) if (part === id) element = e;
+    const wire = sheet.wires.findIndex((w) => w.id === id);
+    const part = sheet.parts.find((p) => p.id === id);
+    const name = part ? `“${part.ref}”` : 'that';
+    if (picking === 'input') {
+      if (element && sourceIds.includes(element)) sPlaneStore.setState({ input: element, picking: null, pickNote: '' });
+      else sPlaneStore.setState({ pickNote: `${name} is not a voltage or current source: click a source to make it the input` });
+      return;
+    }
+    if (element && !sourceIds.includes(element)) {
+      sPlaneStore.setState({ output: `${out.startsWith('current:') ? 'current' : 'voltage'}:${element}`, picking: null, pickNote: '' });
+    } else if (wire >= 0) {
+      sPlaneStore.setState({ output: `node:${solved.circuit.topology.wireNodes[wire]}`, picking: null, pickNote: '' });
+    } else {
+      sPlaneStore.setState({ pickNote: `${name} cannot be the output: click a part that is not a source, or a wire` });
+    }
+  }, [picking, selection, solved, sheet, sourceIds, out]);
 }

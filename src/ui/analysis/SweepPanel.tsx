@@ -19,6 +19,9 @@ import { phaseDeg, sweepPlots, traceDb, TRACE_COLOURS } from './sweepPlots';
 import { dbOf, engLabel } from './plotMath';
 import { hasValueTarget } from '../../model/valueTarget';
 import { useAnalysis } from './useSolved';
+import { useStore } from 'zustand';
+import { sPlaneStore } from '../../store/sPlaneStore';
+import { poleMarks } from './splane';
 
 export { TRACE_COLOURS };
 
@@ -151,6 +154,14 @@ export function SweepPanel({ marks: extraMarks = [] }: { marks?: PlotMark[] } = 
   // a coupling's k is a pure number: its ticks read 0.25, not 250 m
   const xUnit = shownOver ? shownOver.unit || '1' : 'Hz';
   const plots = useMemo(() => (ans ? sweepPlots(ans, shown, { db: settings.db, log: settings.log, xUnit }) : null), [ans, shown, settings.db, settings.log, xUnit]);
+  // the poles of the pair the s-domain view last showed for this sheet, on a frequency sweep
+  const splane = useStore(sPlaneStore);
+  const poles = useMemo(() => {
+    if (!ans || shownOver || !splane.markOnSweep || !splane.answer || !splane.model || !model) return [];
+    if (splane.model !== model && JSON.stringify(splane.model) !== JSON.stringify(model)) return [];
+    const f = ans.frequenciesHz;
+    return poleMarks(splane.answer, f[0], f[f.length - 1]);
+  }, [ans, shownOver, splane, model]);
   const logShown = ans ? (() => {
     const x = ans.values ?? ans.frequenciesHz;
     const n = x.length;
@@ -261,7 +272,7 @@ export function SweepPanel({ marks: extraMarks = [] }: { marks?: PlotMark[] } = 
             {plots.mag.map((s, k) => <span key={s.label}><span className="swatch" style={{ background: s.color }} />{s.label}{settings.db && shown[k] ? ` (${traceDb(shown[k]).unit})` : ''}</span>)}
             {shownOver && <span className="muted">against {shownOver.label}, at {formatSI(ans.frequenciesHz[0], 'Hz', 4)}</span>}
           </div>
-          <Plot testId="plot-magnitude" x={plots.x} xUnit={xUnit} xLabel={shownOver ? shownOver.label : 'frequency'} series={plots.mag} log={logShown} height={200} yLabel="magnitude" yUnit={plots.yUnit} cursor={cursor} onCursor={setCursor} marks={[...plots.marks, ...extraMarks]} />
+          <Plot testId="plot-magnitude" x={plots.x} xUnit={xUnit} xLabel={shownOver ? shownOver.label : 'frequency'} series={plots.mag} log={logShown} height={200} yLabel="magnitude" yUnit={plots.yUnit} cursor={cursor} onCursor={setCursor} marks={[...plots.marks, ...poles, ...extraMarks]} />
           <Plot testId="plot-phase" x={plots.x} xUnit={xUnit} xLabel={shownOver ? shownOver.label : 'frequency'} series={plots.ph} log={logShown} height={140} yLabel="phase" yUnit="°" yDomain={[-180, 180]} cursor={cursor} onCursor={setCursor} />
           <div className="readout" data-testid="sweep-readout">
             {cursor !== null && cursor < plots.x.length ? <>
@@ -279,6 +290,9 @@ export function SweepPanel({ marks: extraMarks = [] }: { marks?: PlotMark[] } = 
           <ul className="markers" data-testid="sweep-markers" aria-label="Markers">
             {plots.lines.map((l, j) => (
               <li key={j} data-kind={l.kind} data-frequency={l.x} data-trace={l.trace}>{l.text}</li>
+            ))}
+            {poles.map((m) => (
+              <li key={`pole-${m.x}`} data-kind="pole" data-frequency={m.x}>{m.label}, from the s-domain view ({splane.answer!.input} to {splane.answer!.output})</li>
             ))}
           </ul>
         </div>
