@@ -1,6 +1,6 @@
 export { parseGraphModel } from './validate';
 export { ModelRefusal } from './errors';
-export { SolverSession, createSession, solveGraph, type RawSolution } from './phasor/session';
+export { SolverSession, createSession, solveGraph, PORT_STRIDE, type RawSolution } from './phasor/session';
 export { sweepGraph, sweepStream, frequencyGrid, frequencyAt, ProbeError, type SweepLayout, type SweepStream } from './phasor/sweep';
 export * from './analysis';
 export { pairState, connectionOf, mutualOf, type PairState, type Connection } from './coupling-state';
