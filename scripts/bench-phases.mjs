@@ -1,11 +1,11 @@
 #!/usr/bin/env node
 // Where the time of the command-line `solve` goes, by phase, on RLC ladders (cheap: about a minute).
 //   node scripts/bench-phases.mjs [--sizes 1000,10000,100000] [--gen ladder|mesh] [--runs 3]
-// Each phase is timed in a fresh process at its first call (scripts/bench/phases-child.mjs), as the command
+// Figures are CPU time (user + system), steadier than wall time on a shared machine. Each phase is timed in a fresh process at its first call (scripts/bench/phases-child.mjs), as the command
 // line meets it; start-up is the wall time of `node dist-cli/coilwright.mjs help` less that of `node -e 0`,
 // and `whole` the wall time of `node dist-cli/coilwright.mjs solve FILE > /dev/null`. Medians of --runs.
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, openSync, closeSync, writeFileSync } from 'node:fs';
+import { closeSync, existsSync, mkdirSync, openSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { build } from 'esbuild';
@@ -50,14 +50,21 @@ const phases = await bundle(
 );
 spawnSync(process.execPath, [join(ROOT, 'scripts', 'build-cli.mjs')], { cwd: ROOT });
 
+/** CPU time (user + system) of one command, from GNU time; wall time where it is missing. */
 function wall(args, stdoutFile = '/dev/null') {
   const fd = openSync(stdoutFile, 'w');
+  const cpuFile = join(OUT, '.bundle', 'phases-cpu.txt');
+  const useTime = existsSync('/usr/bin/time');
   const t = now();
-  const r = spawnSync(process.execPath, args, { cwd: ROOT, stdio: ['ignore', fd, 'pipe'] });
+  const r = useTime
+    ? spawnSync('/usr/bin/time', ['-f', '%U %S', '-o', cpuFile, process.execPath, ...args], { cwd: ROOT, stdio: ['ignore', fd, 'pipe'] })
+    : spawnSync(process.execPath, args, { cwd: ROOT, stdio: ['ignore', fd, 'pipe'] });
   const ms = now() - t;
   closeSync(fd);
   if (r.status !== 0) throw new Error(`${args.join(' ')}: ${String(r.stderr)}`);
-  return ms;
+  if (!useTime) return ms;
+  const [user, sys] = readFileSync(cpuFile, 'utf8').trim().split('\n').pop().split(' ').map(Number);
+  return 1000 * (user + sys);
 }
 const nodeMs = median(Array.from({ length: 5 }, () => wall(['-e', '0'])));
 const helpMs = median(Array.from({ length: 5 }, () => wall([CLI, 'help'])));
@@ -94,7 +101,7 @@ for (const n of SIZES) {
 const table = [['nodes', 'start-up', ...COLUMNS.map(([, h]) => h), 'whole cli', 'child RSS MB']];
 for (const r of rows) table.push([r.n.toLocaleString('en-US'), fmt(helpMs - nodeMs), ...COLUMNS.map(([k]) => fmt(r[k])), fmt(r.wholeMs), fmt(r.rssMB)]);
 const widths = table[0].map((_, c) => Math.max(...table.map((r) => String(r[c]).length)));
-console.log(`Phases of the command-line solve, ${GEN} (ms, median of ${RUNS} fresh processes; node -e 0 alone ${fmt(nodeMs)} ms)`);
+console.log(`Phases of the command-line solve, ${GEN} (CPU ms, median of ${RUNS} fresh processes; node -e 0 alone ${fmt(nodeMs)} ms)`);
 console.log(table.map((r) => r.map((v, c) => String(v).padStart(widths[c])).join('  ')).join('\n'));
 console.log('  start-up = `coilwright help` less `node -e 0`; bundle load = import of the solver and format modules;');
 console.log('  serialise+write = the result objects through jsonPieces to /dev/null; stream write = the solve writer');

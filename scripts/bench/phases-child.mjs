@@ -1,11 +1,15 @@
 // Phase breakdown of one `solve` in a fresh process, first call of each step, as the command line meets it.
 //   node scripts/bench/phases-child.mjs PHASES_BUNDLE FILE
-// Prints one JSON object: milliseconds per phase (bundle load, read, JSON.parse, validation, topology and
+// Prints one JSON object: CPU milliseconds per phase (bundle load, read, JSON.parse, validation, topology and
 // refusal checks, assembly, ordering, factor + solve, result objects, serialisation and writing to /dev/null).
 import { closeSync, openSync, readFileSync, writeSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 
-const now = () => performance.now();
+// CPU time of the process (user + system, all its threads), far steadier than wall time on a shared machine
+const now = () => {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+};
 const [bundle, file] = process.argv.slice(2);
 const out = {};
 let t = now();
