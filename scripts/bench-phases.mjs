@@ -105,5 +105,5 @@ console.log(`Phases of the command-line solve, ${GEN} (CPU ms, median of ${RUNS}
 console.log(table.map((r) => r.map((v, c) => String(v).padStart(widths[c])).join('  ')).join('\n'));
 console.log('  start-up = `coilwright help` less `node -e 0`; bundle load = import of the solver and format modules;');
 console.log('  serialise+write = the result objects through jsonPieces to /dev/null; stream write = the solve writer');
-console.log('  straight from the solution arrays (when present); whole cli = wall of `coilwright solve FILE > /dev/null`');
+console.log('  straight from the solution arrays (when present); whole cli = CPU time of `coilwright solve FILE > /dev/null` (GNU time)');
 writeFileSync(join(OUT, `phases-${GEN}.json`), JSON.stringify({ nodeMs, helpMs, rows }, null, 2));
