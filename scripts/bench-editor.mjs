@@ -16,7 +16,7 @@ import { gzipSync } from 'node:zlib';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
 
-const PORT = 4179;
+const PORT = Number(process.env.E2E_PORT) || 4179;
 const ROOT = new URL('..', import.meta.url).pathname;
 
 /** A sheet of repeated cells: source, series resistor, coupled pair, load, ground (6 parts a cell). */

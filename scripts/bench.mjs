@@ -3,6 +3,7 @@
 //
 //   node scripts/bench.mjs [--sizes 100,1000,10000,100000] [--no-cli] [--no-mathjs] [--no-memory] [--full]
 //                          [--star-sizes 100000,300000,1000000] [--no-star] [--no-tf] [--no-forms]
+//                          [--no-phases]
 //
 // Generates RLC ladders and 2-D meshes (scripts/bench/generators.ts) into
 // bench/out/, then measures
@@ -17,7 +18,8 @@
 //   - `tf` (poles, zeros and natural frequencies) on RLC ladders of about 20, 200 and 2,000 MNA unknowns
 //     (scripts/bench/tf-child.mjs);
 //   - wall time of the bundled command line against the SciPy script
-//     scripts/bench/scipy_yardstick.py doing the same work from the same file.
+//     scripts/bench/scipy_yardstick.py doing the same work from the same file;
+//   - where the time of the command-line `solve` goes, by phase (scripts/bench-phases.mjs).
 // Prints tables and one line per target; writes bench/out/results.json.
 //
 // Time caps keep a run near ten minutes on two cores: a SciPy run is stopped
@@ -505,6 +507,15 @@ for (const mode of ['solve', 'sweep']) {
     else if (!b) verdict(undefined, `${what}: SciPy ${r[`py_${mode}_error`] ? `failed (${r[`py_${mode}_error`]})` : 'not run'}`);
     else verdict(a <= b, `${what}: ${fmt(a)} vs ${fmt(b)} ms (${fmt(a / b, 2)}×)${a <= b ? '' : `, slower by ${fmt(a - b)} ms`}`);
   }
+}
+
+// ---------------------------------------------------------------- phases of `solve` (scripts/bench-phases.mjs)
+if (!flag('--no-phases')) {
+  note('phases of the command-line solve (scripts/bench-phases.mjs)');
+  const sizes = CLI_SIZES.length ? CLI_SIZES : [1000, 10000, 100000];
+  const r = spawnSync(process.execPath, [join(ROOT, 'scripts', 'bench-phases.mjs'), '--sizes', sizes.join(',')], { cwd: ROOT, encoding: 'utf8', maxBuffer: 1 << 24 });
+  log('');
+  log(r.status === 0 ? r.stdout.trimEnd() : `phases not measured: ${String(r.stderr).trim().split('\n').pop()}`);
 }
 
 results.cases = cases;

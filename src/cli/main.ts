@@ -5,8 +5,9 @@ import { jsonPieces } from './format';
 import { harmonicsSizeProblem, MAX_FILE_BYTES, sweepSizeProblem } from './limits';
 import { ColumnSpool, SpoolError } from './sweepSpool';
 import { sweepJsonPieces } from './sweepJson';
+import { solveJsonPieces } from './solveJson';
 import { transientJsonPieces } from './transientJson';
-import { ModelRefusal, solveGraph, sweepStream, frequencyAt, ProbeError, transferFunction, TransferUsageError, transientStream, harmonicSteadyState } from '../solver';
+import { ModelRefusal, SolverSession, sweepStream, frequencyAt, ProbeError, transferFunction, TransferUsageError, transientStream, harmonicSteadyState } from '../solver';
 import { DEFAULT_HARMONIC_COUNT } from '../model/fourier';
 import type { GraphModel } from '../model/graph';
 
@@ -147,8 +148,10 @@ async function main(argv: string[]): Promise<void> {
     }
     // the file's text and parsed JSON are dropped once the model is read
     const { model } = await loadModelText(readFile(cmd.file), cmd.file);
-    if (cmd.command === 'solve') await writeOut(jsonPieces(solveGraph(model)));
-    else if (cmd.command === 'sweep') await sweep(model, cmd);
+    if (cmd.command === 'solve') {
+      const session = new SolverSession(model);
+      await writeOut(solveJsonPieces(session, session.solveRaw(model.frequencyHz)));
+    } else if (cmd.command === 'sweep') await sweep(model, cmd);
     else if (cmd.command === 'tf') await writeOut(jsonPieces(transferFunction(model, cmd.input, cmd.output)));
     else if (cmd.command === 'transient') await transient(model, cmd);
     else if (cmd.command === 'harmonics') await harmonics(model, cmd);

@@ -15,7 +15,8 @@ export const finite = z.number().refine(Number.isFinite, { message: 'must be a f
  * or a 1e-200 Ω one would otherwise end as a matrix it cannot factor.
  */
 export const VALUE_RANGE = 1e150;
-const computable = (v: number) => v === 0 || (Math.abs(v) >= 1 / VALUE_RANGE && Math.abs(v) <= VALUE_RANGE);
+/** Zero, or between 1e-150 and 1e150 in size (false for NaN and the infinities). */
+export const computable = (v: number) => v === 0 || (Math.abs(v) >= 1 / VALUE_RANGE && Math.abs(v) <= VALUE_RANGE);
 const rangeMessage = { message: 'must lie between 1e-150 and 1e150 in size (the solver computes in double precision)' };
 /** A finite value in the solver's range, of either sign. */
 export const computableValue = finite.refine(computable, rangeMessage);

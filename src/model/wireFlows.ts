@@ -95,11 +95,15 @@ export function wireFlows(sheet: Sheet, result: SolveResult, elementOfPart: Map<
 
   const flows: { edge: Edge; from: number; re: number; im: number }[] = [];
   const seen = new Uint8Array(pts.length);
+  // one set of work arrays for every island: each point belongs to exactly one island, so an entry is
+  // written by its own island before it is read and never needs clearing (no allocation per island)
+  const parentEdge = new Int32Array(pts.length);
+  const sRe = new Float64Array(pts.length);
+  const sIm = new Float64Array(pts.length);
   for (let root = 0; root < pts.length; root++) {
     if (seen[root] || adj[root].length === 0) continue;
     // one wire island: breadth-first spanning tree
     const order: number[] = [root];
-    const parentEdge = new Int32Array(pts.length).fill(-1);
     seen[root] = 1;
     for (let q = 0; q < order.length; q++) {
       const v = order[q];
@@ -114,8 +118,6 @@ export function wireFlows(sheet: Sheet, result: SolveResult, elementOfPart: Map<
     }
     const frees = order.filter((v) => free.has(v));
     if (frees.length > 1) continue;
-    const sRe = new Map<number, number>();
-    const sIm = new Map<number, number>();
     if (frees.length === 1) {
       let re = 0, im = 0;
       for (const v of order) { re += injRe[v] ?? 0; im += injIm[v] ?? 0; }
@@ -123,12 +125,12 @@ export function wireFlows(sheet: Sheet, result: SolveResult, elementOfPart: Map<
     }
     for (let q = order.length - 1; q > 0; q--) {
       const v = order[q];
-      const re = (sRe.get(v) ?? 0) + (injRe[v] ?? 0);
-      const im = (sIm.get(v) ?? 0) + (injIm[v] ?? 0);
+      const re = sRe[v] + (injRe[v] ?? 0);
+      const im = sIm[v] + (injIm[v] ?? 0);
       const e = edges[parentEdge[v]];
       const p = e.a === v ? e.b : e.a;
-      sRe.set(p, (sRe.get(p) ?? 0) + re);
-      sIm.set(p, (sIm.get(p) ?? 0) + im);
+      sRe[p] += re;
+      sIm[p] += im;
       flows.push({ edge: e, from: v, re, im });
     }
   }

@@ -1,6 +1,6 @@
 export { parseGraphModel } from './validate';
 export { ModelRefusal } from './errors';
-export { SolverSession, createSession, solveGraph, type RawSolution, type SourceValues } from './phasor/session';
+export { SolverSession, createSession, solveGraph, PORT_STRIDE, type RawSolution, type SourceValues } from './phasor/session';
 export { harmonicSteadyState, harmonicPlan, MAX_HARMONIC_COUNT, type HarmonicOptions, type HarmonicPlan } from './phasor/harmonics';
 export { sweepGraph, sweepStream, frequencyGrid, frequencyAt, ProbeError, type SweepLayout, type SweepStream } from './phasor/sweep';
 export * from './analysis';

@@ -5,6 +5,7 @@ import { ModelRefusal } from './errors';
 import { ELEMENT_DEFS, ELEMENT_KINDS, isElementKind } from './elements/registry';
 import { finite, nameRule, nonNegative } from './elements/schema';
 import { mutualLimit } from '../model/mutual';
+import { fastCoupling, fastElement, fastTop, plainName } from './validateFast';
 export { VALUE_RANGE } from './elements/schema';
 
 /**
@@ -69,7 +70,13 @@ function label(raw: unknown, index: number): string {
   return typeof id === 'string' && id.length > 0 ? `element "${id}"` : `element #${index + 1}`;
 }
 
-export function parseGraphModel(input: unknown): GraphModel {
+export interface ReadOptions {
+  /** false: every part through the zod schemas (the fast path's reference in tests) */
+  fast?: boolean;
+}
+
+export function parseGraphModel(input: unknown, options: ReadOptions = {}): GraphModel {
+  const fast = options.fast !== false;
   if (input === null || typeof input !== 'object' || Array.isArray(input)) {
     throw new ModelRefusal(`file: expected a JSON object with "schema": "${GRAPH_SCHEMA}", got ${describe(input)}`, [{ kind: 'file' }]);
   }
@@ -81,12 +88,16 @@ export function parseGraphModel(input: unknown): GraphModel {
         : '';
     throw new ModelRefusal(`file: "schema" must be "${GRAPH_SCHEMA}", got ${describe(schemaField)}${hint}`, [{ kind: 'file' }]);
   }
-  const top = topSchema.safeParse(input);
-  if (!top.success) throw new ModelRefusal(`model: ${firstIssue(top.error, input)}`, [{ kind: 'model' }]);
+  let top = fast ? fastTop(input as Record<string, unknown>) : null;
+  if (!top) {
+    const parsed = topSchema.safeParse(input);
+    if (!parsed.success) throw new ModelRefusal(`model: ${firstIssue(parsed.error, input)}`, [{ kind: 'model' }]);
+    top = parsed.data;
+  }
 
   const elements: GraphElement[] = [];
   const seen = new Map<string, number>();
-  const raws = top.data.elements;
+  const raws = top.elements;
   for (let index = 0; index < raws.length; index++) {
     const raw = raws[index];
     if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
@@ -97,7 +108,7 @@ export function parseGraphModel(input: unknown): GraphModel {
     if (typeof id !== 'string' || id.length === 0) {
       throw new ModelRefusal(`${label(raw, index)}: "id" must be a non-empty string, got ${describe(r.id)}`, [{ kind: 'element' }]);
     }
-    const idProblem = nameProblem(id);
+    const idProblem = fast && plainName(id) ? null : nameProblem(id);
     if (idProblem) throw new ModelRefusal(`element #${index + 1}: "id" ${idProblem}, got ${describe(id)}`, [{ kind: 'element' }]);
     const before = seen.get(id);
     if (before !== undefined) {
@@ -105,15 +116,17 @@ export function parseGraphModel(input: unknown): GraphModel {
     }
     seen.set(id, index);
     const kind = r.kind;
-    const schema = isElementKind(kind) ? ELEMENT_DEFS[kind].schema : undefined;
-    if (!schema) {
+    if (!isElementKind(kind)) {
       throw new ModelRefusal(`element "${id}": unknown kind ${describe(kind)}; use one of ${KINDS.join(', ')}`, [{ kind: 'element', id }]);
     }
-    const parsed = schema.safeParse(r);
-    if (!parsed.success) {
-      throw new ModelRefusal(`element "${id}" (${kind}): ${firstIssue(parsed.error, r)}`, [{ kind: 'element', id }]);
+    let el = fast ? fastElement(kind, r) : null;
+    if (!el) {
+      const parsed = ELEMENT_DEFS[kind].schema.safeParse(r);
+      if (!parsed.success) {
+        throw new ModelRefusal(`element "${id}" (${kind}): ${firstIssue(parsed.error, r)}`, [{ kind: 'element', id }]);
+      }
+      el = parsed.data as GraphElement;
     }
-    const el = parsed.data as GraphElement;
     const nodes = el.nodes;
     // a part with both ends on one node is physical (a shorted turn, a shorted winding, a source whose ends
     // meet) and the equations stay defined; only a voltage source there contradicts itself
@@ -126,11 +139,15 @@ export function parseGraphModel(input: unknown): GraphModel {
     elements.push(el);
   }
 
-  const byId = new Map(elements.map((e) => [e.id, e]));
+  // one id map: `seen` gives each element's index
+  const byId = (id: string): GraphElement | undefined => {
+    const i = seen.get(id);
+    return i === undefined ? undefined : elements[i];
+  };
   const couplings: Coupling[] = [];
   const pairOwner = new Map<string, string>();
   const couplingIds = new Set<string>();
-  (top.data.couplings ?? []).forEach((raw, index) => {
+  (top.couplings ?? []).forEach((raw, index) => {
     const rid = (raw as { id?: unknown } | null)?.id;
     const name = typeof rid === 'string' && rid.length > 0 ? `coupling "${rid}"` : `coupling #${index + 1}`;
     if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
@@ -141,17 +158,21 @@ export function parseGraphModel(input: unknown): GraphModel {
     }
     const idProblem = nameProblem(rid);
     if (idProblem) throw new ModelRefusal(`coupling #${index + 1}: "id" ${idProblem}, got ${describe(rid)}`, [{ kind: 'coupling' }]);
-    if (byId.has(rid) || couplingIds.has(rid)) {
+    if (seen.has(rid) || couplingIds.has(rid)) {
       throw new ModelRefusal(`coupling "${rid}": duplicate id; give each element and coupling its own id`, [{ kind: 'coupling', id: rid }]);
     }
-    const parsed = couplingSchema.safeParse(raw);
-    if (!parsed.success) throw new ModelRefusal(`${name}: ${firstIssue(parsed.error, raw)}`, [{ kind: 'coupling', id: rid }]);
-    const { windings, k, henries } = parsed.data;
+    let fields = fast ? fastCoupling(raw as Record<string, unknown>) : null;
+    if (!fields) {
+      const parsed = couplingSchema.safeParse(raw);
+      if (!parsed.success) throw new ModelRefusal(`${name}: ${firstIssue(parsed.error, raw)}`, [{ kind: 'coupling', id: rid }]);
+      fields = parsed.data;
+    }
+    const { windings, k, henries } = fields;
     if ((k === undefined) === (henries === undefined)) {
       throw new ModelRefusal(`${name}: give either "k" (coupling coefficient) or "henries" (mutual inductance), not ${k === undefined ? 'neither' : 'both'}`, [{ kind: 'coupling', id: rid }]);
     }
     for (const w of windings) {
-      const el = byId.get(w);
+      const el = byId(w);
       if (!el) throw new ModelRefusal(`${name}: winding ${shownName(w)} is not an element of this model; name an inductor's id`, [{ kind: 'coupling', id: rid }]);
       if (!ELEMENT_DEFS[el.kind].roles.winding) throw new ModelRefusal(`${name}: "${w}" is a ${el.kind}, not an inductor; only inductors can be coupled`, [{ kind: 'coupling', id: rid }, { kind: 'element', id: w }]);
     }
@@ -165,7 +186,7 @@ export function parseGraphModel(input: unknown): GraphModel {
       if (windings.length !== 2) {
         throw new ModelRefusal(`${name}: "henries" couples exactly two windings, got ${windings.length}; use "k" for three or more`, [{ kind: 'coupling', id: rid }]);
       }
-      const [l1, l2] = windings.map((w) => (byId.get(w) as { henries: number }).henries);
+      const [l1, l2] = windings.map((w) => (byId(w) as { henries: number }).henries);
       const mMax = mutualLimit(l1, l2);
       if (henries < 0 || henries > mMax * (1 + 1e-12)) {
         throw new ModelRefusal(`${name}: M = ${henries} H is out of range; it must be between 0 and sqrt(L1·L2) = ${fmt(mMax)} H (k = ${fmt(henries / mMax)} > 1)`, [{ kind: 'coupling', id: rid }]);
@@ -187,9 +208,9 @@ export function parseGraphModel(input: unknown): GraphModel {
 
   return {
     schema: GRAPH_SCHEMA,
-    frequencyHz: top.data.frequencyHz,
-    amplitudes: top.data.amplitudes,
-    ground: top.data.ground,
+    frequencyHz: top.frequencyHz,
+    amplitudes: top.amplitudes,
+    ground: top.ground,
     elements,
     couplings,
   };

@@ -156,33 +156,48 @@ const SMALL_RESISTANCE = 1e-3;
  * so its current from their difference would be mostly rounding; a branch current keeps it exact.
  */
 export function smallResistors(model: GraphModel, topo: Topology): Set<number> {
-  const smallest = new Map<number, { ohms: number; by: number; second: number }>();
-  // a reference node is everyone's neighbour and fixes its own voltage exactly: only other nodes count
+  // per node: its smallest resistance, the resistor giving it, and the second smallest (typed arrays, no
+  // object per node); a reference node is everyone's neighbour and fixes its own voltage exactly: only
+  // other nodes count
+  const nNodes = topo.nodeNames.length;
+  const has = new Uint8Array(nNodes);
+  const least = new Float64Array(nNodes);
+  const by = new Int32Array(nNodes);
+  const second = new Float64Array(nNodes);
+  const { terminals, isReference } = topo;
+  const elements = model.elements;
   const note = (v: number, ohms: number, i: number) => {
-    if (topo.isReference[v]) return;
-    const s = smallest.get(v);
-    if (!s) smallest.set(v, { ohms, by: i, second: Infinity });
-    else if (ohms < s.ohms) smallest.set(v, { ohms, by: i, second: s.ohms });
-    else if (ohms < s.second) s.second = ohms;
+    if (isReference[v]) return;
+    if (!has[v]) {
+      has[v] = 1;
+      least[v] = ohms;
+      by[v] = i;
+      second[v] = Infinity;
+    } else if (ohms < least[v]) {
+      second[v] = least[v];
+      least[v] = ohms;
+      by[v] = i;
+    } else if (ohms < second[v]) second[v] = ohms;
   };
-  const { terminals } = topo;
-  model.elements.forEach((el, i) => {
-    if (el.kind !== 'resistor') return;
+  for (let i = 0; i < elements.length; i++) {
+    const el = elements[i];
+    if (el.kind !== 'resistor') continue;
     note(terminals[4 * i], el.ohms, i);
     note(terminals[4 * i + 1], el.ohms, i);
-  });
+  }
   const out = new Set<number>();
-  model.elements.forEach((el, i) => {
-    if (el.kind !== 'resistor') return;
+  for (let i = 0; i < elements.length; i++) {
+    const el = elements[i];
+    if (el.kind !== 'resistor') continue;
     let others = Infinity;
-    for (const v of [terminals[4 * i], terminals[4 * i + 1]]) {
-      const s = smallest.get(v);
+    for (let t = 0; t < 2; t++) {
+      const v = terminals[4 * i + t];
       // no other resistor at this node (or a reference node): 0, so no branch
-      const neighbour = s ? (s.by === i ? s.second : s.ohms) : 0;
+      const neighbour = has[v] ? (by[v] === i ? second[v] : least[v]) : 0;
       others = Math.min(others, Number.isFinite(neighbour) ? neighbour : 0);
     }
     if (el.ohms < SMALL_RESISTANCE * others) out.add(i);
-  });
+  }
   return out;
 }
 

@@ -78,6 +78,7 @@ export class SolverSession {
   private checked = new Set<boolean>();
   private factored = false;
   private dcTwin?: SolverSession;
+  private readonly port = { vr: 0, vi: 0, ir: 0, ii: 0 };
 
   /**
    * `previous`: the session of the model before an edit. When the edit kept
@@ -215,11 +216,9 @@ export class SolverSession {
 
   solveAt(frequencyHz: number): SolveResult {
     const raw = this.solveRaw(frequencyHz);
-    const twin = frequencyHz === 0 && this.dcTwin ? this.dcTwin : this;
-    twin.refuseRoundedSingular(frequencyHz);
+    const warnings = this.warningsAt(frequencyHz);
     const result = this.toResult(raw);
-    const warning = twin.precisionWarning(frequencyHz);
-    if (warning) result.warnings.push(warning);
+    result.warnings = warnings;
     return result;
   }
 
@@ -329,43 +328,83 @@ export class SolverSession {
     readPort(this, sol, i, p, out);
   }
 
+  /**
+   * Every element's port values from a raw solution, PORT_STRIDE numbers per element (see `portsInto`);
+   * `portCount` 1 or 2 per element. Throws ModelRefusal when a power overflows.
+   */
+  portTable(sol: RawSolution): { values: Float64Array; portCount: Uint8Array } {
+    const count = this.model.elements.length;
+    const values = new Float64Array(PORT_STRIDE * count);
+    const portCount = new Uint8Array(count);
+    for (let i = 0; i < count; i++) portCount[i] = this.portsInto(sol, i, values, PORT_STRIDE * i);
+    return { values, portCount };
+  }
+
+  /**
+   * Element i's port values into out[o ..]: voltage re, im and current re, im of port 0, then of port 1,
+   * then watts and vars (S = V·conj(I) in rms or DC, ½·V·conj(I) in peak), each −0 made 0; returns the
+   * number of ports. Throws ModelRefusal when the power overflows, so that nothing is printed or drawn as
+   * Infinity.
+   */
+  private portsInto(sol: RawSolution, i: number, out: Float64Array, o: number): number {
+    const el = this.model.elements[i];
+    const ports = defOf(el).ports.length;
+    const scale = sol.frequencyHz === 0 || this.model.amplitudes === 'rms' ? 1 : 0.5;
+    const port = this.port;
+    let watts = 0;
+    let vars = 0;
+    for (let p = 0; p < ports; p++) {
+      readPort(this, sol, i, p, port);
+      const { vr, vi, ir, ii } = port;
+      out[o + 4 * p] = z(vr);
+      out[o + 4 * p + 1] = z(vi);
+      out[o + 4 * p + 2] = z(ir);
+      out[o + 4 * p + 3] = z(ii);
+      // summed left to right as V·conj(I) over the ports, so the figures are the same to the last bit
+      watts = watts + vr * ir + vi * ii;
+      vars = vars + vi * ir - vr * ii;
+    }
+    watts *= scale;
+    vars *= scale;
+    if (!Number.isFinite(watts) || !Number.isFinite(vars)) {
+      throw new ModelRefusal(`element "${el.id}": its power overflows at ${sol.frequencyHz} Hz (more than 1.8e308 W or var); bring the circuit's voltages, currents and values nearer to everyday sizes`, [{ kind: 'element', id: el.id }]);
+    }
+    out[o + 8] = z(watts);
+    out[o + 9] = z(vars);
+    return ports;
+  }
+
+  /**
+   * The warnings of a solve at this frequency: the topology's, then the precision warning if any; refuses a
+   * model that only rounding made solvable (refuseRoundedSingular).
+   */
+  warningsAt(frequencyHz: number): string[] {
+    const twin = frequencyHz === 0 && this.dcTwin ? this.dcTwin : this;
+    twin.refuseRoundedSingular(frequencyHz);
+    const warnings = [...this.topo.warnings];
+    const warning = twin.precisionWarning(frequencyHz);
+    if (warning) warnings.push(warning);
+    return warnings;
+  }
+
   /** Builds the contract's result JSON from a raw solution. */
   toResult(sol: RawSolution, only?: { nodes?: Set<string>; elements?: Set<string> }): SolveResult {
     const { model, topo } = this;
-    const dc = sol.frequencyHz === 0;
-    const scale = dc || model.amplitudes === 'rms' ? 1 : 0.5;
     // no prototype: a node or element named "__proto__" or "constructor" is an entry like any other
     const nodes = nameTable<ComplexJson>();
     topo.nodeNames.forEach((name, v) => {
       if (!only?.nodes || only.nodes.has(name)) nodes[name] = c(sol.vRe[v], sol.vIm[v]);
     });
     const elements = nameTable<ElementResult>();
-    const port = { vr: 0, vi: 0, ir: 0, ii: 0 };
+    const t = new Float64Array(PORT_STRIDE);
     model.elements.forEach((el, i) => {
       if (only?.elements && !only.elements.has(el.id)) return;
-      const ports = defOf(el).ports;
-      if (ports.length === 1) {
-        readPort(this, sol, i, 0, port);
-        const { vr, vi, ir, ii } = port;
-        // S = V·conj(I) (rms or DC), ½·V·conj(I) (peak)
-        elements[el.id] = {
-          voltage: c(vr, vi),
-          current: c(ir, ii),
-          power: powerOf(el.id, scale * (vr * ir + vi * ii), scale * (vi * ir - vr * ii), sol.frequencyHz),
-        };
-        return;
-      }
-      readPort(this, sol, i, 0, port);
-      const { vr, vi, ir: ipr, ii: ipi } = port;
-      readPort(this, sol, i, 1, port);
-      const { vr: vsr, vi: vsi, ir: isr, ii: isi } = port;
-      const watts = scale * (vr * ipr + vi * ipi + vsr * isr + vsi * isi);
-      const vars = scale * (vi * ipr - vr * ipi + vsi * isr - vsr * isi);
-      elements[el.id] = {
-        voltages: [c(vr, vi), c(vsr, vsi)],
-        currents: [c(ipr, ipi), c(isr, isi)],
-        power: powerOf(el.id, watts, vars, sol.frequencyHz),
-      };
+      const ports = this.portsInto(sol, i, t, 0);
+      const power = { watts: t[8], vars: t[9] };
+      elements[el.id] =
+        ports === 1
+          ? { voltage: { re: t[0], im: t[1] }, current: { re: t[2], im: t[3] }, power }
+          : { voltages: [{ re: t[0], im: t[1] }, { re: t[4], im: t[5] }], currents: [{ re: t[2], im: t[3] }, { re: t[6], im: t[7] }], power };
     });
     return {
       schema: RESULT_SCHEMA,
@@ -377,6 +416,9 @@ export class SolverSession {
     };
   }
 }
+
+/** Numbers per element in `SolverSession.portTable`: two ports of (v re, v im, i re, i im), then watts, vars. */
+export const PORT_STRIDE = 10;
 
 /**
  * Voltage across port p of element i and the current through it, by the
@@ -458,14 +500,6 @@ function samePattern(a: CscPattern, b: CscPattern): boolean {
   for (let i = 0; i <= a.n; i++) if (a.colPtr[i] !== b.colPtr[i]) return false;
   for (let i = 0; i < a.rowIdx.length; i++) if (a.rowIdx[i] !== b.rowIdx[i]) return false;
   return true;
-}
-
-/** An element's complex power; a product beyond double range is refused, never printed as Infinity or null. */
-function powerOf(id: string, watts: number, vars: number, frequencyHz: number): { watts: number; vars: number } {
-  if (!Number.isFinite(watts) || !Number.isFinite(vars)) {
-    throw new ModelRefusal(`element "${id}": its power overflows at ${frequencyHz} Hz (more than 1.8e308 W or var); bring the circuit's voltages, currents and values nearer to everyday sizes`, [{ kind: 'element', id }]);
-  }
-  return { watts: z(watts), vars: z(vars) };
 }
 
 /** Normalises −0 to 0 so that JSON output never shows "-0". */
