@@ -291,15 +291,13 @@ export function perUnitSeries(rating: Rating, c: EquivalentCircuit, hz: number):
   return { re: (z1.re + z2.re) / zb, im: (z1.im + z2.im) / zb };
 }
 
+/** A spec entered from its tests: [volts, amps, watts, side] of each. */
+export function specFromTests(rating: Rating, noLoad: [number, number, number, TestSide], shortCircuit: [number, number, number, TestSide]): PowerSpec {
+  const reading = ([volts, amps, watts, side]: [number, number, number, TestSide]): TestReading => ({ volts, amps, watts, side });
+  return { form: 'tests', expansion: 'ratio', rating, tests: { noLoad: reading(noLoad), shortCircuit: reading(shortCircuit) } };
+}
+
 /** A spec to start from: a 1 kVA, 230 V / 115 V, 50 Hz transformer entered from its tests (values of our own). */
 export function defaultPowerSpec(): PowerSpec {
-  return {
-    form: 'tests',
-    expansion: 'ratio',
-    rating: { va: 1000, v1: 230, v2: 115, hz: 50 },
-    tests: {
-      noLoad: { volts: 230, amps: 0.12, watts: 14, side: 'primary' },
-      shortCircuit: { volts: 9.2, amps: 1000 / 230, watts: 24, side: 'primary' },
-    },
-  };
+  return specFromTests({ va: 1000, v1: 230, v2: 115, hz: 50 }, [230, 0.12, 14, 'primary'], [9.2, 1000 / 230, 24, 'primary']);
 }

@@ -2,13 +2,14 @@
 import { nameProblem, titleProblem } from '../model/names';
 import { formatEditable } from '../model/quantity';
 import { couplingName } from '../model/couplingName';
-import { PART_DEFS, isCouplable } from '../model/parts/registry';
+import { PART_DEFS, contributes, isCouplable } from '../model/parts/registry';
 import * as E from '../model/edits';
 import { PART_KINDS, TITLE_FIELDS, type DisplaySettings, type Part, type SheetCoupling } from '../model/sheet';
 import { commit, renamePart } from '../store/actions';
 import { CommandButton } from './CommandButton';
 import { Field, quantity } from './Field';
 import { useEditor, useEditorState } from './editorContext';
+import { PowerEditor } from './PowerEditor';
 import { SwitchEditor, WaveformEditor } from './TimeEditors';
 import { parseEntry } from './valueEntry';
 
@@ -83,7 +84,7 @@ function DisplayFields() {
     const s = store.getState().sheet;
     commit(store, { ...s, display: { ...s.display, ...patch } });
   };
-  const kinds = PART_KINDS.filter((k) => PART_DEFS[k].toElement);
+  const kinds = PART_KINDS.filter((k) => contributes(PART_DEFS[k]));
   return (
     <details className="tb-fields" data-testid="display-fields">
       <summary>What the drawing shows</summary>
@@ -158,6 +159,7 @@ function PartDetails({ part }: { part: Part }) {
       ))}
       {def.editor === 'waveform' && <WaveformEditor part={part} />}
       {def.editor === 'switch' && <SwitchEditor part={part} />}
+      {def.editor === 'power' && <PowerEditor part={part} />}
       {def.couplable && (
         <div className="field">
           <span className="label">Polarity dot</span>
@@ -167,7 +169,7 @@ function PartDetails({ part }: { part: Part }) {
           </div>
         </div>
       )}
-      {def.toElement && (
+      {contributes(def) && (
         <label className="check"><input type="checkbox" data-testid="show-part-readings" checked={!sheetDisplay.hideParts.includes(part.id)}
           onChange={(e) => commit(store, { ...store.getState().sheet, display: { ...sheetDisplay, hideParts: e.target.checked ? sheetDisplay.hideParts.filter((x) => x !== part.id) : [...sheetDisplay.hideParts, part.id] } })} /> show this part's readings on the drawing</label>
       )}
