@@ -6,6 +6,7 @@
  * whole data set; a refusal names the field and the sheet keeps the last good
  * values.
  */
+import { useState } from 'react';
 import { formatEditable, formatSI } from '../model/quantity';
 import { ratioText } from '../model/parts/others';
 import { expandPower, powerReport } from '../model/powerExpansion';
@@ -15,9 +16,9 @@ import {
 import * as E from '../model/edits';
 import type { Part } from '../model/sheet';
 import { commit } from '../store/actions';
-import { solvedNow } from './analysis/useSolved';
+import { useSolved } from './analysis/useSolved';
 import { Field } from './Field';
-import { useEditor, useEditorState } from './editorContext';
+import { useEditor } from './editorContext';
 import { parseEntry } from './valueEntry';
 
 interface FieldSpec { path: string; label: string; unit: string; optional?: boolean; hint?: string }
@@ -69,16 +70,35 @@ function setPath(spec: PowerSpec, path: string, value: unknown): PowerSpec {
 
 const FORM_LABELS: Record<PowerForm, string> = { circuit: 'equivalent circuit', tests: 'rating and tests', perUnit: 'per-unit data' };
 
+/**
+ * Entries not yet applied, by part: data typed in one field at a time pass
+ * through states that do not hold together (a new test voltage before its
+ * current), so the panel keeps them here, names the field at fault, and applies
+ * the whole set to the sheet as soon as it holds together again.
+ */
+const drafts = new Map<string, PowerSpec>();
+
 export function PowerEditor({ part }: { part: Part }) {
   const { store } = useEditor();
-  const spec = part.power ?? defaultPowerSpec();
-  const solved = useEditorState((s) => solvedNow(s));
+  const [, redraw] = useState(0);
+  const spec = drafts.get(part.id) ?? part.power ?? defaultPowerSpec();
+  const solved = useSolved();
   const set = (next: PowerSpec) => commit(store, E.updatePart(store.getState().sheet, part.id, { power: next }));
-  /** apply a new spec if it holds together; the reason otherwise */
-  const tryApply = (next: PowerSpec): string | null => {
+  /**
+   * Take a new data set: applied when it holds together; kept as a draft otherwise.
+   * Returns the reason when the field `path` itself is the one at fault.
+   */
+  const update = (next: PowerSpec, path?: string): string | null => {
     const problem = powerSpecProblem(next);
-    if (problem) return problem.message;
-    set(next);
+    if (!problem) {
+      drafts.delete(part.id);
+      set(next);
+      redraw((n) => n + 1);
+      return null;
+    }
+    if (path && problem.field === path) return problem.message;
+    drafts.set(part.id, next);
+    redraw((n) => n + 1);
     return null;
   };
   const field = (f: FieldSpec) => {
@@ -87,8 +107,8 @@ export function PowerEditor({ part }: { part: Part }) {
     return (
       <Field key={`${part.id}-${spec.form}-${f.path}`} live label={f.label} unit={f.unit} value={shown} hint={f.hint} testId={`power-${f.path}`}
         apply={async (t) => {
-          const now = store.getState().sheet.parts.find((p) => p.id === part.id)?.power ?? spec;
-          if (f.optional && t.trim() === '') return tryApply(setPath(now, f.path, undefined));
+          const now = drafts.get(part.id) ?? store.getState().sheet.parts.find((p) => p.id === part.id)?.power ?? spec;
+          if (f.optional && t.trim() === '') return update(setPath(now, f.path, undefined), f.path);
           let text = t.trim();
           let unit = f.unit;
           let scale = 1;
@@ -97,7 +117,7 @@ export function PowerEditor({ part }: { part: Part }) {
             if (m) {
               const [a, b] = [await parseEntry(m[1], ''), await parseEntry(m[2], '')];
               if (!a.ok || !b.ok || !(b.value > 0)) return `${f.label}: write it as N1:N2 or a number`;
-              return tryApply(setPath(now, f.path, a.value / b.value));
+              return update(setPath(now, f.path, a.value / b.value), f.path);
             }
           }
           // a reactance typed into an inductance field is read at the rated frequency
@@ -108,7 +128,8 @@ export function PowerEditor({ part }: { part: Part }) {
           }
           const r = await parseEntry(text, unit);
           if (!r.ok) return `${f.label}: ${r.reason}`;
-          return tryApply(setPath(now, f.path, r.value * scale));
+          if (!Number.isFinite(r.value)) return `${f.label} must be a finite number`;
+          return update(setPath(now, f.path, r.value * scale), f.path);
         }} />
     );
   };
@@ -116,16 +137,14 @@ export function PowerEditor({ part }: { part: Part }) {
     <label className="field">
       <span className="label">taken on</span>
       <select data-testid={`power-tests.${at}.side`} value={spec.tests?.[at].side ?? 'primary'}
-        onChange={(e) => {
-          const r = tryApply(setPath(spec, `tests.${at}.side`, e.target.value as TestSide));
-          if (r) store.setState({ notice: { tone: 'error', text: r } });
-        }}>
+        onChange={(e) => update(setPath(spec, `tests.${at}.side`, e.target.value as TestSide))}>
         <option value="primary">the primary (other side open / shorted)</option>
         <option value="secondary">the secondary (other side open / shorted)</option>
       </select>
     </label>
   );
   const problem = powerSpecProblem(spec);
+  const pending = drafts.has(part.id);
   const forms = problem ? null : allForms(spec);
   const x = solved?.circuit.expansions.get(part.id);
   const report = x && solved && !problem ? powerReport(spec, x, solved.result) : null;
@@ -155,8 +174,8 @@ export function PowerEditor({ part }: { part: Part }) {
           {PER_UNIT.slice(0, 1).map(field)}
           <fieldset className="radio">
             <legend>Series resistance from</legend>
-            <label><input type="radio" name={`power-r-${part.id}`} checked={!spec.perUnit?.byXr} onChange={() => tryApply(setPath(spec, 'perUnit.byXr', false))} /> the load loss</label>
-            <label><input type="radio" name={`power-r-${part.id}`} checked={!!spec.perUnit?.byXr} onChange={() => tryApply(setPath(spec, 'perUnit.byXr', true))} /> X/R</label>
+            <label><input type="radio" name={`power-r-${part.id}`} checked={!spec.perUnit?.byXr} onChange={() => update(setPath(spec, 'perUnit.byXr', false))} /> the load loss</label>
+            <label><input type="radio" name={`power-r-${part.id}`} checked={!!spec.perUnit?.byXr} onChange={() => update(setPath(spec, 'perUnit.byXr', true))} /> X/R</label>
           </fieldset>
           {spec.perUnit?.byXr ? field({ path: 'perUnit.xr', label: 'X/R', unit: '' }) : field({ path: 'perUnit.loadLossW', label: 'Load loss at rated current', unit: 'W' })}
           {PER_UNIT.slice(1).map(field)}
@@ -164,11 +183,16 @@ export function PowerEditor({ part }: { part: Part }) {
       )}
       <fieldset className="radio">
         <legend>In the circuit as</legend>
-        <label><input type="radio" name={`power-x-${part.id}`} checked={spec.expansion === 'ratio'} onChange={() => tryApply({ ...spec, expansion: 'ratio' })} /> exact equivalent circuit with an ideal ratio</label>
+        <label><input type="radio" name={`power-x-${part.id}`} checked={spec.expansion === 'ratio'} onChange={() => update({ ...spec, expansion: 'ratio' })} /> exact equivalent circuit with an ideal ratio</label>
         <label><input type="radio" name={`power-x-${part.id}`} data-testid="power-expansion-coupled" checked={spec.expansion === 'coupled'}
-          onChange={() => { const r = tryApply({ ...spec, expansion: 'coupled' }); if (r) store.setState({ notice: { tone: 'error', text: r } }); }} /> coupled windings with k, and resistors (core loss across the primary winding)</label>
+          onChange={() => update({ ...spec, expansion: 'coupled' })} /> coupled windings with k, and resistors (core loss across the primary winding)</label>
       </fieldset>
-      {problem && <p className="field-error" role="alert" data-testid="power-problem">{problem.message}</p>}
+      {problem && (
+        <div className="field-error" role="alert" data-testid="power-problem" data-field={problem.field}>
+          {problem.message}{pending ? ' — not applied yet: the sheet keeps the last values that held together.' : ''}
+          {pending && <button type="button" className="cmd" onClick={() => { drafts.delete(part.id); redraw((n) => n + 1); }}>Put back the applied values</button>}
+        </div>
+      )}
       {forms && <DerivedForms spec={spec} forms={forms} />}
       {!problem && <ExpansionList part={part} spec={spec} />}
       {report && <ReportTable report={report} />}
