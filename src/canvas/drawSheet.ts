@@ -1,6 +1,7 @@
 /** Draws the sheet itself: grid, wires, junctions, open ends, parts, labels, couplings, selection. */
 import { GRID, type Rect } from '../model/geometry';
 import { COUPLING_TEXT, couplingGeometry } from '../model/hit';
+import { couplingNote } from '../model/couplingName';
 import { PART_DEFS, partBox, partMarks } from '../model/parts/registry';
 import type { SymbolStyle } from '../model/parts/types';
 import type { Sheet } from '../model/sheet';
@@ -130,6 +131,12 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
     c.textAlign = 'center';
     c.textBaseline = 'middle';
     c.fillText(text, g.label.x, g.label.y);
+    // the pair's effective turns ratio and k, small, under the label
+    const note = couplingNote(sheet, cp);
+    if (note) {
+      c.font = `${COUPLING_TEXT - 2}px ${THEME.font}`;
+      c.fillText(note, g.label.x, box.y1 + 7);
+    }
     c.textBaseline = 'alphabetic';
   }
 

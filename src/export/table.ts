@@ -3,7 +3,7 @@ import type { ComplexJson, GraphModel, SolveResult } from '../model/graph';
 import { isDissipative, sourceKindOf } from '../model/elementFacts';
 import { angleDeg, mag } from '../model/phasor';
 import { formatAngle, formatSI } from '../model/quantity';
-import { couplingName, couplingTitle } from '../model/couplingName';
+import { couplingName, couplingTitle, pairFigures, windingRefs } from '../model/couplingName';
 import type { DerivedCircuit } from '../model/toGraph';
 import { hline, rect, t, type Block } from './blocks';
 import type { SvgOptions } from './options';
@@ -221,15 +221,10 @@ export function couplingSummary(circuit: DerivedCircuit): string[] {
   const sheet = circuit.source;
   const out: string[] = [];
   for (const cp of sheet.couplings) {
-    const ws = cp.windings.map((id) => sheet.parts.find((p) => p.id === id)).filter((p) => !!p);
-    if (ws.length !== 2) continue;
-    const [l1, l2] = ws.map((w) => w!.value ?? 0);
-    const root = Math.sqrt(l1 * l2);
-    const k = cp.by === 'k' ? cp.value : root > 0 ? cp.value / root : 0;
-    const m = cp.by === 'M' ? cp.value : cp.value * root;
-    const n = l2 > 0 ? Math.sqrt(l1 / l2) : 0;
-    const ratio = n >= 1 ? `${Number(n.toPrecision(4))} : 1` : n > 0 ? `1 : ${Number((1 / n).toPrecision(4))}` : '—';
-    out.push(`${couplingTitle(sheet, cp)}: ${ws[0]!.ref} = ${formatSI(l1, 'H', 4)}, ${ws[1]!.ref} = ${formatSI(l2, 'H', 4)}, ${couplingName(sheet, cp, 'M')} = ${formatSI(m, 'H', 4)}, ${couplingName(sheet, cp, 'k')} = ${Number(k.toPrecision(4))}, effective turns ratio √(${ws[0]!.ref}/${ws[1]!.ref}) = ${ratio}`);
+    const f = pairFigures(sheet, cp);
+    if (!f) continue;
+    const [a, b] = windingRefs(sheet, cp);
+    out.push(`${couplingTitle(sheet, cp)}: ${a} = ${formatSI(f.l1, 'H', 4)}, ${b} = ${formatSI(f.l2, 'H', 4)}, ${couplingName(sheet, cp, 'M')} = ${formatSI(f.m, 'H', 4)}, ${couplingName(sheet, cp, 'k')} = ${Number(f.k.toPrecision(4))}, effective turns ratio √(${a}/${b}) = ${f.ratio}`);
   }
   return out;
 }

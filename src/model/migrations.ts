@@ -14,7 +14,8 @@
  *     (without one they follow their phasor, as before); the `switch` part
  *     kind (`closed`, `onOhms`, `offOhms`, `togglesS`).
  * v7: the `power` part kind (a practical transformer, its data in `power`);
- *     nothing to change in older files.
+ *     windings may carry their core's inductance factor `alH`; nothing to
+ *     change in older files.
  */
 import { SHEET_SCHEMA_PREFIX, SHEET_VERSION } from './sheet';
 

@@ -57,6 +57,8 @@ export interface Part {
   togglesS?: number[];
   /** a practical transformer's data, in the form it was entered (src/model/powerTransformer.ts) */
   power?: PowerSpec;
+  /** a winding's core inductance factor A_L, henries per turn² (its turns are then √(L/A_L)) */
+  alH?: number;
 }
 
 /** The numeric fields of a part that the details panel edits. */

@@ -80,6 +80,7 @@ export const partSchema = z.object({
   offOhms: positive.optional(),
   togglesS: increasingTimes(0, true).refine((t) => t.length <= L.toggles, `has more than ${L.toggles} times; a switch toggles at most ${L.toggles} times`).optional(),
   power: powerSpecSchema.optional(),
+  alH: positive.optional(),
 });
 
 export const wireSchema = z.object({
