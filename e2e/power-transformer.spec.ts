@@ -149,3 +149,32 @@ test('a practical transformer typed in from its nameplate and tests solves with 
   await expect(page.getByTestId('power-expansion')).toContainText('T1.N ideal-transformer');
   await shot(page, info, 'practical-transformer');
 });
+
+test('k from two bench readings in the coupling inspector, applied as one undoable step', async ({ page }, info) => {
+  await page.goto('/');
+  await page.getByRole('button', { name: /Sheets/ }).click();
+  await page.locator('[data-example="isolation"]').click();
+  await expect(page.getByTestId('convention')).toContainText('50 Hz');
+  // the link's label sits above the two windings (Lp at x 430, Ls at x 570, both at y 200)
+  await clickSheet(page, 500, 148);
+  await expect(page.getByTestId('coupling-inspector')).toBeVisible();
+  await page.getByTestId('bench-calculator').locator('summary').click();
+  // two 3.2 H windings, k = 0.95: M = 3.04 H, series aiding 6.4 + 6.08 H, opposing 6.4 − 6.08 H (field notes, L1 + L2 ± 2M)
+  await typeInto(page, 'bench-a', '12.48');
+  await typeInto(page, 'bench-b', '0.32');
+  await expect(page.getByTestId('bench-answer')).toContainText('k = 0.95,');
+  await shot(page, info, 'bench-readings');
+  await page.getByTestId('bench-apply').click();
+  const k = async () => (await state(page)).sheet.couplings[0];
+  await expect.poll(async () => (await k()).value).toBeCloseTo(0.95, 12);
+  expect((await k()).by).toBe('k');
+  // one undo puts the sheet's k back
+  await page.getByTestId('sheet-canvas').focus();
+  await page.keyboard.press('Control+z');
+  await expect.poll(async () => (await k()).value).toBe(0.998);
+  // a shorted reading above the open one is refused naming it
+  await page.getByTestId('bench-method-open-short').check();
+  await typeInto(page, 'bench-a', '3.2');
+  await typeInto(page, 'bench-b', '3.5');
+  await expect(page.getByTestId('bench-problem')).toContainText('shorted must be below the one with it open');
+});

@@ -134,8 +134,12 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
     // the pair's effective turns ratio and k, small, under the label
     const note = couplingNote(sheet, cp);
     if (note) {
-      c.font = `${COUPLING_TEXT - 2}px ${THEME.font}`;
-      c.fillText(note, g.label.x, box.y1 + 7);
+      c.font = `${COUPLING_TEXT - 1}px ${THEME.font}`;
+      const half = c.measureText(note).width / 2 + 4;
+      c.fillStyle = '#fbf8f1';
+      c.fillRect(g.label.x - half, box.y1 + 1, 2 * half, COUPLING_TEXT + 3);
+      c.fillStyle = bad ? THEME.error : THEME.coupling;
+      c.fillText(note, g.label.x, box.y1 + 2.5 + COUPLING_TEXT / 2);
     }
     c.textBaseline = 'alphabetic';
   }
