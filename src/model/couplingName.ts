@@ -59,10 +59,12 @@ export function pairFigures(sheet: Pick<Sheet, 'parts'>, cp: SheetCoupling): { l
   return { l1, l2, k, m, ratio };
 }
 
-/** The line drawn under a pair's link in the editor: "√(L1/L2) = 2 : 1 · k = 0.998". */
+/**
+ * The line drawn under a pair's link in the editor: "√(L₁/L₂) = 2 : 1 · k = 0.998",
+ * L₁ the first winding the link names (kept short whatever the windings' names).
+ */
 export function couplingNote(sheet: Pick<Sheet, 'parts'>, cp: SheetCoupling): string {
   const f = pairFigures(sheet, cp);
   if (!f) return '';
-  const [a, b] = windingRefs(sheet, cp);
-  return `√(${a}/${b}) = ${f.ratio} · k = ${Number(f.k.toPrecision(4))}`;
+  return `√(L₁/L₂) = ${f.ratio} · k = ${Number(f.k.toPrecision(4))}`;
 }

@@ -280,8 +280,11 @@ export function allForms(spec: PowerSpec): PowerForms {
 /** The spec turned to another form, its values derived from the present one (so both stand for one circuit). */
 export function switchForm(spec: PowerSpec, form: PowerForm): PowerSpec {
   if (form === spec.form) return spec;
-  const f = allForms(spec);
-  return { ...spec, form, circuit: f.circuit, tests: f.tests, perUnit: f.perUnit, [form]: f[form] };
+  // the tests and per-unit forms take the turns ratio from the rated voltages (a transformer's rated
+  // voltages are its no-load voltages, common practice), so leaving the circuit form carries its ratio there
+  const rating = spec.form === 'circuit' && spec.circuit ? { ...spec.rating, v2: spec.rating.v1 / spec.circuit.ratio } : spec.rating;
+  const f = allForms({ ...spec, rating });
+  return { ...spec, rating, form, circuit: f.circuit, tests: f.tests, perUnit: f.perUnit, [form]: f[form] };
 }
 
 /** Per-unit series impedance (both sides, referred) at a frequency, on the primary's base V1²/S. */

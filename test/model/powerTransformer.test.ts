@@ -80,6 +80,13 @@ describe('practical transformer from test data', () => {
       const sw = circuitOf(switchForm(spec(), f));
       for (const k of ['r1', 'l1', 'lm', 'rc'] as const) expectClose(sw[k]!, c[k]!, 1e-9);
     }
+    // a circuit whose turns ratio is not the rated voltage ratio carries its ratio into the other forms
+    const odd: PowerSpec = { form: 'circuit', expansion: 'ratio', rating, circuit: { ...c, ratio: 25 } };
+    const moved = switchForm(odd, 'tests');
+    expectClose(moved.rating.v1 / moved.rating.v2, 25, 1e-12);
+    // the tests cannot tell the sides apart, so the split may change, but the circuit gives the same readings
+    const before = testsFromCircuit(moved.rating, odd.circuit!), after = testsFromCircuit(moved.rating, circuitOf(moved));
+    for (const t of ['noLoad', 'shortCircuit'] as const) for (const q of ['volts', 'amps', 'watts'] as const) expectClose(after[t][q], before[t][q], 1e-9);
     // impedance voltage: uk = Vsc/V1 at rated current (field notes, from memory)
     const forms = allForms({ form: 'circuit', expansion: 'ratio', rating, circuit: c });
     expectClose(forms.perUnit.ukPct, (100 * rated.shortCircuit.volts) / rating.v1, 1e-12);
