@@ -5,6 +5,7 @@ import { angleDeg, mag } from '../model/phasor';
 import { formatAngle, formatSI } from '../model/quantity';
 import { couplingName, couplingTitle, pairFigures, windingRefs } from '../model/couplingName';
 import type { DerivedCircuit } from '../model/toGraph';
+import { powerReport, powerReportLine } from '../model/powerExpansion';
 import { hline, rect, t, type Block } from './blocks';
 import type { SvgOptions } from './options';
 import { PRINT } from './palette';
@@ -111,7 +112,7 @@ export function tableBlock(circuit: DerivedCircuit, result: SolveResult | null, 
     ? `DC values; ${measured}; P = V·I absorbed by each part (negative: delivered).`
     : `Magnitudes are ${convention} values (${result.amplitudes === 'rms' ? 'S = V·I*' : 'S = ½·V·I*'}), angles in degrees; ${measured}; P and Q absorbed by each part (negative: delivered).`;
   const summary = `Sources deliver P = ${wattsText(tot.watts)}, Q = ${varsText(tot.vars)}; resistors dissipate ${wattsText(tot.dissipated)}.`;
-  const couplingLines = couplingSummary(circuit);
+  const couplingLines = [...couplingSummary(circuit), ...transformerSummary(circuit, result)];
 
   // node voltages and part readings side by side, each in as many groups as the height needs,
   // at the largest font (2.5 mm down to 1.7 mm) at which all groups fit the width
@@ -210,6 +211,17 @@ export function tableBlock(circuit: DerivedCircuit, result: SolveResult | null, 
     return out.join('\n');
   };
   return { height, render };
+}
+
+/** One line per practical transformer: its report at the solved operating point. */
+export function transformerSummary(circuit: DerivedCircuit, result: SolveResult): string[] {
+  const out: string[] = [];
+  for (const part of circuit.source.parts) {
+    const x = circuit.expansions.get(part.id);
+    if (!x || !part.power || !x.elements.every((e) => result.elements[e.id])) continue;
+    out.push(powerReportLine(part.ref, part.power, powerReport(part.power, x, result)));
+  }
+  return out;
 }
 
 /**

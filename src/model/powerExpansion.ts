@@ -154,3 +154,17 @@ export function powerReport(spec: PowerSpec, x: Expansion, result: SolveResult):
   }
   return { load, worstLoad, copperW, coreW, inputW, outputW, efficiency, regulation, zpu, v1, v2, i1, i2 };
 }
+
+/** The report in one line, for the exported sheet: "T1: load 96.6 % of 25 kVA; copper 360.5 W, core 91.76 W; efficiency 97.63 %; …". */
+export function powerReportLine(ref: string, spec: PowerSpec, r: PowerReport): string {
+  const pct = (v: number, d: number) => `${Number((100 * v).toPrecision(d))} %`;
+  const w = (v: number) => `${Number(v.toPrecision(4))} W`;
+  const parts = [
+    `${ref}: load ${pct(r.load, 3)} of ${Number(spec.rating.va.toPrecision(4))} VA`,
+    `copper ${w(r.copperW)}, core ${w(r.coreW)}`,
+    `efficiency ${r.efficiency === null ? '—' : pct(r.efficiency, 4)}`,
+    `regulation ${r.regulation === null ? '—' : pct(r.regulation, 3)}`,
+  ];
+  if (r.zpu) parts.push(`z = ${Number(r.zpu.re.toPrecision(3))} + j${Number(r.zpu.im.toPrecision(3))} pu`);
+  return parts.join('; ');
+}

@@ -401,3 +401,12 @@ describe('svgToSheet refuses in one line', () => {
     expect(svgToSheet(renamed)).toEqual(sheet);
   });
 });
+
+describe('sheetToSvg with a practical transformer', () => {
+  it('prints its report at the operating point beside the readings (the figures of test/model/powerExamples.test.ts)', () => {
+    seedIds(3);
+    const sheet = EXAMPLES.find((e) => e.key === 'distribution')!.make();
+    const line = texts(sheetToSvg(sheet, solved(sheet), OPTS)).find((t) => t.startsWith('T1: load'));
+    expect(line).toBe('T1: load 96.6 % of 25000 VA; copper 360.5 W, core 91.76 W; efficiency 97.63 %; regulation 3.46 %; z = 0.0152 + j0.037 pu');
+  });
+});
