@@ -150,7 +150,7 @@ test('a practical transformer typed in from its nameplate and tests solves with 
   await shot(page, info, 'practical-transformer');
 });
 
-test('k from two bench readings in the coupling inspector, applied as one undoable step', async ({ page }, info) => {
+test('k from two bench readings in the coupling inspector, applied as one undoable step; a winding by its turns', async ({ page }, info) => {
   await page.goto('/');
   await page.getByRole('button', { name: /Sheets/ }).click();
   await page.locator('[data-example="isolation"]').click();
@@ -177,4 +177,12 @@ test('k from two bench readings in the coupling inspector, applied as one undoab
   await typeInto(page, 'bench-a', '3.2');
   await typeInto(page, 'bench-b', '3.5');
   await expect(page.getByTestId('bench-problem')).toContainText('shorted must be below the one with it open');
+  // a winding by its turns on a core: A_L 250 nH per turn², 4000 turns give L = N²·A_L = 4 H (common practice)
+  await clickSheet(page, 430, 215);
+  await expect(page.getByTestId('part-details')).toBeVisible();
+  await page.getByTestId('turns-fields').locator('summary').click();
+  await typeInto(page, 'field-al', '250n');
+  await expect(page.getByTestId('field-turns')).toHaveValue(String(Number(Math.sqrt(3.2 / 250e-9).toPrecision(9))));
+  await typeInto(page, 'field-turns', '4000');
+  await expect.poll(async () => (await state(page)).sheet.parts.find((p: any) => p.ref === 'Lp').value).toBeCloseTo(4, 12);
 });
