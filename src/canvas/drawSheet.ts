@@ -1,6 +1,7 @@
 /** Draws the sheet itself: grid, wires, junctions, open ends, parts, labels, couplings, selection. */
 import { GRID, type Rect } from '../model/geometry';
 import { COUPLING_TEXT, couplingGeometry } from '../model/hit';
+import { couplingNote } from '../model/couplingName';
 import { PART_DEFS, partBox, partMarks } from '../model/parts/registry';
 import type { SymbolStyle } from '../model/parts/types';
 import type { Sheet } from '../model/sheet';
@@ -131,6 +132,16 @@ export function drawSheet(c: CanvasRenderingContext2D, sheet: Sheet, o: SheetDra
     c.textAlign = 'center';
     c.textBaseline = 'middle';
     c.fillText(text, g.label.x, g.label.y);
+    // the pair's effective turns ratio and k, small, under the label
+    const note = couplingNote(sheet, cp);
+    if (note) {
+      c.font = `${COUPLING_TEXT - 1}px ${THEME.font}`;
+      const half = c.measureText(note).width / 2 + 4;
+      c.fillStyle = '#fbf8f1';
+      c.fillRect(g.label.x - half, box.y1 + 1, 2 * half, COUPLING_TEXT + 3);
+      c.fillStyle = bad ? THEME.error : THEME.coupling;
+      c.fillText(note, g.label.x, box.y1 + 2.5 + COUPLING_TEXT / 2);
+    }
     c.textBaseline = 'alphabetic';
   }
 

@@ -1,6 +1,6 @@
 /** Pieces of the page in millimetres: text and rules, the title block, the cautions. */
 import type { SolveResult } from '../model/graph';
-import { cautionsFor, openSecondaries } from '../model/cautions';
+import { cautionsFor, openSecondaries, overloads } from '../model/cautions';
 import { formatSI } from '../model/quantity';
 import type { Sheet } from '../model/sheet';
 import type { DerivedCircuit } from '../model/toGraph';
@@ -132,6 +132,7 @@ export function cautionBlock(circuit: DerivedCircuit, result: SolveResult | null
     for (const c of cautionsFor(circuit.model, result)) {
       add(c.kind === 'elv' ? '⚠ Hazardous voltage' : '⚠ Open winding', c.text, PRINT.caution, c.kind === 'elv' ? 'caution-voltage' : 'caution-open-winding');
     }
+    for (const c of overloads(circuit, result)) add('⚠ Above rating', c.text, PRINT.caution, 'caution-overload');
   }
   for (const c of openSecondaries(circuit.model)) add('⚠ Open current-transformer secondary', c.text, PRINT.caution, 'caution-open-secondary');
   // said of the sheet: an isolated section, not the solver's "isolated part"

@@ -3,8 +3,9 @@ import type { ComplexJson, GraphModel, SolveResult } from '../model/graph';
 import { isDissipative, sourceKindOf } from '../model/elementFacts';
 import { angleDeg, mag } from '../model/phasor';
 import { formatAngle, formatSI } from '../model/quantity';
-import { couplingName, couplingTitle } from '../model/couplingName';
+import { couplingName, couplingTitle, pairFigures, windingRefs } from '../model/couplingName';
 import type { DerivedCircuit } from '../model/toGraph';
+import { powerReport, powerReportLine } from '../model/powerExpansion';
 import { hline, rect, t, type Block } from './blocks';
 import type { SvgOptions } from './options';
 import { PRINT } from './palette';
@@ -112,7 +113,7 @@ export function tableBlock(circuit: DerivedCircuit, result: SolveResult | null, 
     ? `DC values; ${measured}; P = V·I absorbed by each part (negative: delivered).`
     : `Magnitudes are ${convention} values (${result.amplitudes === 'rms' ? 'S = V·I*' : 'S = ½·V·I*'}), angles in degrees; ${measured}; P and Q absorbed by each part (negative: delivered).`;
   const summary = `Sources deliver P = ${wattsText(tot.watts)}, Q = ${varsText(tot.vars)}; resistors dissipate ${wattsText(tot.dissipated)}.`;
-  const couplingLines = couplingSummary(circuit);
+  const couplingLines = [...couplingSummary(circuit), ...transformerSummary(circuit, result)];
 
   // node voltages and part readings side by side, each in as many groups as the height needs,
   // at the largest font (2.5 mm down to 1.7 mm) at which all groups fit the width
@@ -213,6 +214,17 @@ export function tableBlock(circuit: DerivedCircuit, result: SolveResult | null, 
   return { height, render };
 }
 
+/** One line per practical transformer: its report at the solved operating point. */
+export function transformerSummary(circuit: DerivedCircuit, result: SolveResult): string[] {
+  const out: string[] = [];
+  for (const part of circuit.source.parts) {
+    const x = circuit.expansions.get(part.id);
+    if (!x || !part.power || !x.elements.every((e) => result.elements[e.id])) continue;
+    out.push(powerReportLine(part.ref, part.power, powerReport(part.power, x, result)));
+  }
+  return out;
+}
+
 /**
  * One line per coupling, named by its windings: both self-inductances, M and
  * k (M = k·√(L1·L2), field notes) and the effective turns ratio √(L1/L2)
@@ -222,15 +234,10 @@ export function couplingSummary(circuit: DerivedCircuit): string[] {
   const sheet = circuit.source;
   const out: string[] = [];
   for (const cp of sheet.couplings) {
-    const ws = cp.windings.map((id) => sheet.parts.find((p) => p.id === id)).filter((p) => !!p);
-    if (ws.length !== 2) continue;
-    const [l1, l2] = ws.map((w) => w!.value ?? 0);
-    const root = mutualLimit(l1, l2);
-    const k = cp.by === 'k' ? cp.value : root > 0 ? cp.value / root : 0;
-    const m = cp.by === 'M' ? cp.value : cp.value * root;
-    const n = l2 > 0 ? Math.sqrt(l1 / l2) : 0;
-    const ratio = n >= 1 ? `${Number(n.toPrecision(4))} : 1` : n > 0 ? `1 : ${Number((1 / n).toPrecision(4))}` : '—';
-    out.push(`${couplingTitle(sheet, cp)}: ${ws[0]!.ref} = ${formatSI(l1, 'H', 4)}, ${ws[1]!.ref} = ${formatSI(l2, 'H', 4)}, ${couplingName(sheet, cp, 'M')} = ${formatSI(m, 'H', 4)}, ${couplingName(sheet, cp, 'k')} = ${Number(k.toPrecision(4))}, effective turns ratio √(${ws[0]!.ref}/${ws[1]!.ref}) = ${ratio}`);
+    const f = pairFigures(sheet, cp);
+    if (!f) continue;
+    const [a, b] = windingRefs(sheet, cp);
+    out.push(`${couplingTitle(sheet, cp)}: ${a} = ${formatSI(f.l1, 'H', 4)}, ${b} = ${formatSI(f.l2, 'H', 4)}, ${couplingName(sheet, cp, 'M')} = ${formatSI(f.m, 'H', 4)}, ${couplingName(sheet, cp, 'k')} = ${Number(f.k.toPrecision(4))}, effective turns ratio √(${a}/${b}) = ${f.ratio}`);
   }
   return out;
 }

@@ -5,6 +5,8 @@
  * high-impedance load (an open current-transformer secondary; common practice).
  */
 import type { GraphModel, SolveResult } from './graph';
+import { powerReport } from './powerExpansion';
+import type { DerivedCircuit } from './toGraph';
 import { mag } from './phasor';
 import { formatSI } from './quantity';
 
@@ -13,7 +15,7 @@ export const ELV_AC_RMS = 50;
 export const OPEN_LOAD_OHMS = 1e5;
 
 export interface Caution {
-  kind: 'elv' | 'open-winding' | 'open-secondary';
+  kind: 'elv' | 'open-winding' | 'open-secondary' | 'overload';
   text: string;
   /** what the caution is about, to mark on the drawing: an element by its graph id, or a node */
   target: { kind: 'element' | 'node'; id: string } | null;
@@ -113,4 +115,26 @@ export function galvanicSections(model: GraphModel, joins: (e: GraphModel['eleme
     join(e.nodes[0], e.nodes[1]);
   }
   return find;
+}
+
+/**
+ * A practical transformer loaded above its rating: either winding's current
+ * above its rated current (S/V). A linear model shows no heating; in practice
+ * the windings overheat and the insulation ages (common practice: keep within
+ * the nameplate rating unless its data allow an overload).
+ */
+export function overloads(circuit: DerivedCircuit, result: SolveResult): Caution[] {
+  const out: Caution[] = [];
+  for (const part of circuit.source.parts) {
+    const x = circuit.expansions.get(part.id);
+    if (!x || !part.power || !x.elements.every((e) => result.elements[e.id])) continue;
+    const r = powerReport(part.power, x, result);
+    if (!(r.worstLoad > 1 + 1e-9)) continue;
+    out.push({
+      kind: 'overload',
+      target: { kind: 'element', id: x.elements[0].id },
+      text: `${part.ref} is loaded to ${Number((100 * r.worstLoad).toPrecision(3))} % of its rated current (${formatSI(part.power.rating.va, 'VA', 4)} rating). This model is linear: it shows no heating, but an overloaded transformer overheats its windings and ages its insulation. Keep within the nameplate rating; overloading, protection and fusing must follow the maker's data, local electrical codes and licensed practice.`,
+    });
+  }
+  return out;
 }

@@ -5,6 +5,7 @@
  * winding names joined by "~" ("L1~L2").
  */
 import { formatSI } from './quantity';
+import { mutualLimit } from './mutual';
 import type { Sheet, SheetCoupling } from './sheet';
 
 const SUB = '₀₁₂₃₄₅₆₇₈₉';
@@ -40,4 +41,31 @@ export function couplingTitle(sheet: Pick<Sheet, 'parts'>, cp: SheetCoupling): s
   const refs = windingRefs(sheet, cp);
   const name = couplingName(sheet, cp);
   return name.includes('(') ? name : `${name} (${refs.join('–')})`;
+}
+
+/**
+ * A coupled pair's figures: both self-inductances, k and M (M = k·√(L1·L2),
+ * field notes) and the effective turns ratio √(L1/L2) (inductance goes with
+ * the turns squared; common practice), written as the trade writes a ratio.
+ */
+export function pairFigures(sheet: Pick<Sheet, 'parts'>, cp: SheetCoupling): { l1: number; l2: number; k: number; m: number; ratio: string } | null {
+  const ws = cp.windings.map((id) => sheet.parts.find((p) => p.id === id));
+  if (ws.length !== 2 || !ws[0] || !ws[1]) return null;
+  const [l1, l2] = ws.map((w) => w!.value ?? 0);
+  const root = mutualLimit(l1, l2);
+  const k = cp.by === 'k' ? cp.value : root > 0 ? cp.value / root : 0;
+  const m = cp.by === 'M' ? cp.value : cp.value * root;
+  const n = l2 > 0 ? Math.sqrt(l1 / l2) : 0;
+  const ratio = n >= 1 ? `${Number(n.toPrecision(4))} : 1` : n > 0 ? `1 : ${Number((1 / n).toPrecision(4))}` : '—';
+  return { l1, l2, k, m, ratio };
+}
+
+/**
+ * The line drawn under a pair's link in the editor: "√(L₁/L₂) = 2 : 1 · k = 0.998",
+ * L₁ the first winding the link names (kept short whatever the windings' names).
+ */
+export function couplingNote(sheet: Pick<Sheet, 'parts'>, cp: SheetCoupling): string {
+  const f = pairFigures(sheet, cp);
+  if (!f) return '';
+  return `√(L₁/L₂) = ${f.ratio} · k = ${Number(f.k.toPrecision(4))}`;
 }

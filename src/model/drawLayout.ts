@@ -11,7 +11,7 @@ import { PART_DEFS, partBox, pinPositions } from './parts/registry';
 import { angleDeg, mag } from './phasor';
 import { formatAngle, formatSI, siScale } from './quantity';
 import { defaultDisplay, type Part, type Sheet } from './sheet';
-import type { DerivedCircuit } from './toGraph';
+import { partReadings, type DerivedCircuit } from './toGraph';
 import { wireFlows } from './wireFlows';
 
 export type Align = 'left' | 'right' | 'center';
@@ -107,9 +107,12 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
   const display = sheet.display ?? defaultDisplay();
   const partsById = new Map<string, Part>();
   for (const p of sheet.parts) partsById.set(p.id, p);
+  // an expanded part (a practical transformer) reads as one part at its terminals
+  const byPart = partReadings(circuit, result);
+  const elements = byPart.elements;
   let maxI = 0;
-  for (const id in result.elements) {
-    const r = result.elements[id];
+  for (const id in elements) {
+    const r = elements[id];
     maxI = Math.max(maxI, isTwo(r) ? mag(r.current) : Math.max(mag(r.currents[0]), mag(r.currents[1])));
   }
   if (instant && instant.maxAmps > 0) maxI = instant.maxAmps;
@@ -118,13 +121,13 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
   const pushArrow = (c: Point, d: Point, half: number, m: number, element?: string) =>
     arrows.push({ from: { x: c.x - d.x * half, y: c.y - d.y * half }, to: { x: c.x + d.x * half, y: c.y + d.y * half }, width: weight(m), ...(element ? { element } : {}) });
 
-  for (const id in result.elements) {
-    const partId = circuit.partOfElement.get(id);
+  for (const id in elements) {
+    const partId = byPart.partOfElement.get(id);
     const part = partId ? partsById.get(partId) : undefined;
     if (!part || o.hidden?.has(part.id)) continue;
     // what the sheet's display settings leave out
     if (!display.partCurrents || display.hideKinds.includes(part.kind) || display.hideParts.includes(part.id)) continue;
-    const r = result.elements[id];
+    const r = elements[id];
     if (isTwo(r)) {
       const m = mag(r.current);
       if (m <= floor || m === 0) continue;
@@ -143,7 +146,7 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
       r.currents.forEach((cur, side) => {
         const m = mag(cur);
         if (m <= floor) return;
-        const lx = side === 0 ? -40 : 40;
+        const lx = PART_DEFS[part.kind].pins[2 * side].x;
         const inward = side === 0 ? 1 : -1;
         const [a, b] = [toSheet(part, lx + inward * 6, -38), toSheet(part, lx + inward * 24, -38)];
         arrows.push(sense(cur) > 0 ? { from: a, to: b, width: weight(m), element: id } : { from: b, to: a, width: weight(m), element: id });
@@ -155,8 +158,8 @@ export function overlayLayout(sheet: Sheet, circuit: DerivedCircuit, result: Sol
 
   if (!o.noWireFlows && display.wireCurrents) {
     const elementOfPart = new Map<string, string>();
-    for (const [el, part] of circuit.partOfElement) elementOfPart.set(part, el);
-    for (const f of wireFlows(sheet, result, elementOfPart)) {
+    for (const [el, part] of byPart.partOfElement) elementOfPart.set(part, el);
+    for (const f of wireFlows(sheet, { ...result, elements }, elementOfPart)) {
       const sg = sense(f.current);
       pushArrow(f.at, { x: sg * f.dir.x, y: sg * f.dir.y }, 7, mag(f.current));
       if (f.repeats) continue;

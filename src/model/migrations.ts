@@ -13,6 +13,9 @@
  *     0, the value at t = 0 they always had); sources may carry a `waveform`
  *     (without one they follow their phasor, as before); the `switch` part
  *     kind (`closed`, `onOhms`, `offOhms`, `togglesS`).
+ * v7: the `power` part kind (a practical transformer, its data in `power`);
+ *     windings may carry their core's inductance factor `alH`; nothing to
+ *     change in older files.
  */
 import { SHEET_SCHEMA_PREFIX, SHEET_VERSION } from './sheet';
 
@@ -60,6 +63,7 @@ export const migrations: Record<number, (s: Json) => Json> = {
       return part;
     }),
   }),
+  6: (s) => ({ ...s, schema: `${SHEET_SCHEMA_PREFIX}7` }),
 };
 
 function asArray(v: unknown): unknown[] {

@@ -1,9 +1,10 @@
 /** The sheet: what the editor draws and saves (current schema version). */
 import type { Amplitudes, DotEnd, Waveform } from './graph';
 import type { QuarterTurns } from './geometry';
+import type { PowerSpec } from './powerTransformer';
 
 export const SHEET_SCHEMA_PREFIX = 'coilwright.sheet/';
-export const SHEET_VERSION = 6;
+export const SHEET_VERSION = 7;
 export const SHEET_SCHEMA = `${SHEET_SCHEMA_PREFIX}${SHEET_VERSION}` as const;
 
 export type PartKind =
@@ -18,10 +19,12 @@ export type PartKind =
   /** an arm of an equivalent circuit (T-equivalent): an inductance that may be zero or negative */
   | 'arm'
   /** a switch: a resistance of onOhms when closed, offOhms when open, flipping at its toggle times */
-  | 'switch';
+  | 'switch'
+  /** a practical two-winding transformer (losses, leakage, magnetising), expanded into graph elements */
+  | 'power';
 
 export const PART_KINDS: readonly PartKind[] = [
-  'resistor', 'winding', 'capacitor', 'vsource', 'isource', 'transformer', 'ground', 'label', 'arm', 'switch',
+  'resistor', 'winding', 'capacitor', 'vsource', 'isource', 'transformer', 'ground', 'label', 'arm', 'switch', 'power',
 ];
 
 export interface Part {
@@ -52,6 +55,10 @@ export interface Part {
   offOhms?: number;
   /** a switch's toggle times, seconds, strictly increasing and above 0 */
   togglesS?: number[];
+  /** a practical transformer's data, in the form it was entered (src/model/powerTransformer.ts) */
+  power?: PowerSpec;
+  /** a winding's core inductance factor A_L, henries per turn² (its turns are then √(L/A_L)) */
+  alH?: number;
 }
 
 /** The numeric fields of a part that the details panel edits. */

@@ -4,6 +4,7 @@ import { nameProblem, titleProblem } from './names';
 import { PART_KINDS, SHEET_SCHEMA, type Sheet } from './sheet';
 import { increasingTimes, positive } from './values';
 import { waveformSchema } from './waveform';
+import { powerSpecProblem, type PowerSpec } from './powerTransformer';
 
 /**
  * Bounds on what a sheet may hold. They refuse only what the editor never
@@ -40,6 +41,21 @@ const designator = z.string().superRefine(check((s) => (s === '' ? null : namePr
 const id = name;
 const tooMany = (what: string, max: number) => `holds more than ${max} ${what}; a sheet has at most ${max}`;
 
+const side = z.enum(['primary', 'secondary']);
+const reading = z.object({ volts: finite, amps: finite, watts: finite, side });
+/** a practical transformer's data: the form it was entered in, checked by the same rules as the details panel */
+export const powerSpecSchema = z.object({
+  form: z.enum(['circuit', 'tests', 'perUnit']),
+  expansion: z.enum(['ratio', 'coupled']).default('ratio'),
+  rating: z.object({ va: finite, v1: finite, v2: finite, hz: finite }),
+  circuit: z.object({ ratio: finite, r1: finite, r2: finite, l1: finite, l2: finite, lm: finite.optional(), rc: finite.optional() }).optional(),
+  tests: z.object({ noLoad: reading, shortCircuit: reading }).optional(),
+  perUnit: z.object({ ukPct: finite, byXr: z.boolean(), xr: finite, loadLossW: finite, i0Pct: finite, p0W: finite }).optional(),
+}).superRefine((spec, ctx) => {
+  const p = powerSpecProblem(spec as PowerSpec);
+  if (p) ctx.addIssue({ code: 'custom', path: p.field.split('.'), message: p.message });
+});
+
 export const partSchema = z.object({
   id,
   kind: z.enum(PART_KINDS as [string, ...string[]]),
@@ -63,6 +79,8 @@ export const partSchema = z.object({
   onOhms: positive.optional(),
   offOhms: positive.optional(),
   togglesS: increasingTimes(0, true).refine((t) => t.length <= L.toggles, `has more than ${L.toggles} times; a switch toggles at most ${L.toggles} times`).optional(),
+  power: powerSpecSchema.optional(),
+  alH: positive.optional(),
 });
 
 export const wireSchema = z.object({

@@ -9,7 +9,7 @@
  * meet; a wire end touching nothing is an open end.
  */
 import { pointKey, type Point } from './geometry';
-import { PART_DEFS, pinPositions } from './parts/registry';
+import { PART_DEFS, contributes, pinPositions } from './parts/registry';
 import type { Sheet } from './sheet';
 import { UnionFind } from './unionFind';
 
@@ -157,7 +157,7 @@ export function deriveTopology(sheet: Sheet): Topology {
       }
     }
     // the upper pin of a standing two-terminal part is a tidy place for its node's tag
-    if (count === 2 && PART_DEFS[parts[i].kind].toElement) {
+    if (count === 2 && contributes(PART_DEFS[parts[i].kind])) {
       const a = pinPos[pinBase[i]], b = pinPos[pinBase[i] + 1];
       if (a.x === b.x) {
         const upper = a.y < b.y ? 0 : 1;

@@ -2,16 +2,18 @@
 import { nameProblem, titleProblem } from '../model/names';
 import { formatEditable } from '../model/quantity';
 import { couplingName } from '../model/couplingName';
-import { PART_DEFS, isCouplable } from '../model/parts/registry';
+import { PART_DEFS, contributes, isCouplable } from '../model/parts/registry';
 import * as E from '../model/edits';
 import { PART_KINDS, TITLE_FIELDS, type DisplaySettings, type Part, type SheetCoupling } from '../model/sheet';
 import { commit, renamePart } from '../store/actions';
 import { CommandButton } from './CommandButton';
 import { Field, quantity } from './Field';
 import { useEditor, useEditorState } from './editorContext';
+import { PowerEditor } from './PowerEditor';
 import { SwitchEditor, WaveformEditor } from './TimeEditors';
 import { parseEntry } from './valueEntry';
 import { mutualLimit } from '../model/mutual';
+import { inductanceFromTurns, turnsFromInductance } from '../model/couplingMeasure';
 
 export function Details() {
   const selection = useEditorState((s) => s.selection);
@@ -84,7 +86,7 @@ function DisplayFields() {
     const s = store.getState().sheet;
     commit(store, { ...s, display: { ...s.display, ...patch } });
   };
-  const kinds = PART_KINDS.filter((k) => PART_DEFS[k].toElement);
+  const kinds = PART_KINDS.filter((k) => contributes(PART_DEFS[k]));
   return (
     <details className="tb-fields" data-testid="display-fields">
       <summary>What the drawing shows</summary>
@@ -159,6 +161,8 @@ function PartDetails({ part }: { part: Part }) {
       ))}
       {def.editor === 'waveform' && <WaveformEditor part={part} />}
       {def.editor === 'switch' && <SwitchEditor part={part} />}
+      {def.editor === 'power' && <PowerEditor part={part} />}
+      {def.couplable && <TurnsFields part={part} patch={patch} />}
       {def.couplable && (
         <div className="field">
           <span className="label">Polarity dot</span>
@@ -168,7 +172,7 @@ function PartDetails({ part }: { part: Part }) {
           </div>
         </div>
       )}
-      {def.toElement && (
+      {contributes(def) && (
         <label className="check"><input type="checkbox" data-testid="show-part-readings" checked={!sheetDisplay.hideParts.includes(part.id)}
           onChange={(e) => commit(store, { ...store.getState().sheet, display: { ...sheetDisplay, hideParts: e.target.checked ? sheetDisplay.hideParts.filter((x) => x !== part.id) : [...sheetDisplay.hideParts, part.id] } })} /> show this part's readings on the drawing</label>
       )}
@@ -229,4 +233,33 @@ function kFromM(sheet: { parts: Part[] }, c: SheetCoupling): number {
   if (c.by === 'k') return c.value;
   const [a, b] = c.windings.map((w) => sheet.parts.find((p) => p.id === w)?.value ?? 0);
   return a > 0 && b > 0 ? Math.min(1, c.value / mutualLimit(a, b)) : 0.9;
+}
+
+/** A winding by its turns on a core: L = N²·A_L (common practice); the inductance stays the one value the circuit uses. */
+function TurnsFields({ part, patch }: { part: Part; patch: (p: Partial<Part>) => void }) {
+  const al = part.alH;
+  return (
+    <details className="tb-fields" data-testid="turns-fields" open={al !== undefined}>
+      <summary>By turns on a core (L = N²·A_L)</summary>
+      <Field key={`${part.id}-al`} label="Core inductance factor A_L (per turn²)" unit="H" testId="field-al" hint="from the core's data, e.g. 250n (250 nH per turn²); empty for none"
+        value={al === undefined ? '' : formatEditable(al, 'H')}
+        apply={async (t) => {
+          if (!t.trim()) { patch({ alH: undefined }); return null; }
+          const r = await quantity(t, 'H', (v) => (v > 0 ? null : 'A_L must be more than zero'));
+          if ('reason' in r) return r.reason;
+          patch({ alH: r.value });
+          return null;
+        }} />
+      {al !== undefined && (
+        <Field key={`${part.id}-turns`} live label="Turns N" testId="field-turns" hint={`sets the inductance to N²·A_L; now ${Number(turnsFromInductance(part.value ?? 0, al).toPrecision(5))} turns`}
+          value={formatEditable(turnsFromInductance(part.value ?? 0, al), '')}
+          apply={async (t) => {
+            const r = await quantity(t, '', (v) => (v > 0 ? null : 'Turns must be more than zero'));
+            if ('reason' in r) return r.reason;
+            patch({ value: inductanceFromTurns(r.value, al) });
+            return null;
+          }} />
+      )}
+    </details>
+  );
 }

@@ -6,7 +6,7 @@
  * drawing; expanded, its list scrolls.
  */
 import { useMemo, useState } from 'react';
-import { cautionsFor, openSecondaries, type Caution } from '../model/cautions';
+import { cautionsFor, openSecondaries, overloads, type Caution } from '../model/cautions';
 import type { DerivedCircuit } from '../model/toGraph';
 import type { EditorState } from '../store/types';
 import { useEditor, useEditorState } from './editorContext';
@@ -42,13 +42,14 @@ export function noticesOf(s: Pick<EditorState, 'solve' | 'derived' | 'notice'>):
   if (circuit) hazards.push(...openSecondaries(circuit.model));
   if (solve.status === 'solved' && solve.result && solve.circuit) {
     for (const c of cautionsFor(solve.circuit.model, solve.result)) hazards.push(c);
+    for (const c of overloads(solve.circuit, solve.result)) hazards.push(c);
   }
   // the most specific first: an open secondary, then an open winding, then a hazardous voltage
-  const rank = { 'open-secondary': 0, 'open-winding': 1, elv: 2 } as Record<string, number>;
+  const rank = { 'open-secondary': 0, 'open-winding': 1, overload: 2, elv: 3 } as Record<string, number>;
   hazards.sort((a, b) => (rank[a.kind] ?? 3) - (rank[b.kind] ?? 3));
   for (const c of hazards) {
     out.push({
-      tone: 'hazard', head: c.kind === 'elv' ? 'Hazardous voltage' : c.kind === 'open-secondary' ? 'Open current-transformer secondary' : 'Open winding',
+      tone: 'hazard', head: c.kind === 'elv' ? 'Hazardous voltage' : c.kind === 'open-secondary' ? 'Open current-transformer secondary' : c.kind === 'overload' ? 'Above rating' : 'Open winding',
       text: c.text, partId: partOf(c.kind === 'elv' ? solve.circuit : circuit, c), testId: `caution-${c.kind}`,
     });
   }

@@ -13,6 +13,7 @@ import type { SolveResult, TwoTerminalResult } from '../../src/model/graph';
 import { formatSI } from '../../src/model/quantity';
 import { deriveCircuit } from '../../src/model/toGraph';
 import { efficiency, parseGraphModel, solveGraph, sourceImpedance } from '../../src/solver';
+import { powerReport } from '../../src/model/powerExpansion';
 
 const ROOT = resolve(__dirname, '../..');
 const two = (r: SolveResult, id: string) => r.elements[id] as TwoTerminalResult;
@@ -48,6 +49,22 @@ const FIGURES: Record<string, (sheet: ReturnType<(typeof EXAMPLES)[number]['make
     const open = solveGraph(parseGraphModel({ ...c, elements: c.elements.map((e) => (e.id === 'Rburden' ? { ...e, ohms: 1e6 } : e)) }));
     const vOpen = abs(two(open, 'Lsec').voltage);
     return `${formatSI(abs(b.current), 'A', 3)} and ${formatSI(abs(b.voltage), 'V', 3)} at the burden; open secondary > ${Math.floor(vOpen / 100) * 100} V`;
+  },
+  distribution: (sheet) => {
+    const at = (closed: boolean) => {
+      const s = { ...sheet, parts: sheet.parts.map((p) => (p.kind === 'switch' ? { ...p, closed } : p)) };
+      const c = deriveCircuit(s);
+      const t = s.parts.find((p) => p.kind === 'power')!;
+      const rep = powerReport(t.power!, c.expansions.get(t.id)!, solveGraph(parseGraphModel(c.model)));
+      return `efficiency ${(rep.efficiency! * 100).toFixed(2)} %, regulation ${(rep.regulation! * 100).toFixed(2)} %`;
+    };
+    return `full load: ${at(true)}; half load: ${at(false)}`;
+  },
+  control: (sheet) => {
+    const c = deriveCircuit(sheet);
+    const t = sheet.parts.find((p) => p.kind === 'power')!;
+    const rep = powerReport(t.power!, c.expansions.get(t.id)!, solveGraph(parseGraphModel(c.model)));
+    return `load ${(rep.load * 100).toFixed(1)} %; efficiency ${(rep.efficiency! * 100).toFixed(1)} %, regulation ${(rep.regulation! * 100).toFixed(2)} %`;
   },
 };
 

@@ -16,7 +16,7 @@ describe('sheet files', () => {
     expect(() => parseSheetJson([1, 2])).toThrow(/expected a JSON object/);
     expect(() => parseSheetJson({ title: 'x' })).toThrow(/no "schema" field/);
     expect(() => parseSheetJson({ schema: 'someone.else/1' })).toThrow(/foreign/);
-    expect(() => parseSheetJson({ schema: 'coilwright.sheet/99', parts: [] })).toThrow(/newer than this editor reads \(up to 6\)/);
+    expect(() => parseSheetJson({ schema: 'coilwright.sheet/99', parts: [] })).toThrow(/newer than this editor reads \(up to 7\)/);
     expect(() => parseSheetJson({ schema: 'coilwright.graph/1', elements: [] })).toThrow(/graph model, not a sheet/);
     expect(isSheetJson({ schema: 'coilwright.graph/1' })).toBe(false);
   });

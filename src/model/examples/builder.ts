@@ -4,6 +4,7 @@ import type { QuarterTurns, Point } from '../geometry';
 import { newId } from '../ids';
 import { PART_DEFS, pinPositions } from '../parts/registry';
 import { emptySheet, type Part, type PartKind, type Sheet } from '../sheet';
+import type { PowerSpec } from '../powerTransformer';
 
 export function sheetBuilder(title: string, frequencyHz: number) {
   const sheet: Sheet = { ...emptySheet(title), frequencyHz };
@@ -34,3 +35,28 @@ export function sheetBuilder(title: string, frequencyHz: number) {
 }
 
 export const at = (x: number, y: number): Point => ({ x, y });
+
+/**
+ * A practical transformer T1 at (400, 210) fed by a voltage source at (200, 210),
+ * both grounded on the rail at y = 320; returns the transformer and the rails
+ * its secondary load hangs between (top y = 100 from its dotted pin, bottom y = 320).
+ */
+export function transformerFeed(title: string, subtitle: string, sourceRef: string, volts: number, spec: PowerSpec) {
+  const b = sheetBuilder(title, spec.rating.hz);
+  b.sheet.titleBlock.subtitle = subtitle;
+  const top = 100, bottom = 320;
+  const v = b.part('vsource', sourceRef, 200, 210, { value: volts, phaseDeg: 0 });
+  const t = b.part('power', 'T1', 400, 210, { power: spec });
+  b.part('ground', '', 200, bottom);
+  b.part('ground', '', 450, bottom);
+  b.wire(b.pin(v, 0), at(200, 180), b.pin(t, 0));
+  b.wire(b.pin(v, 1), at(200, bottom));
+  b.wire(b.pin(t, 1), at(350, bottom), at(200, bottom));
+  b.wire(b.pin(t, 3), at(450, bottom));
+  return { b, t, top, bottom };
+}
+
+/** A load of impedance |z| at power factor pf lagging, as a series R and L at hz. */
+export function lagging(z: number, pf: number, hz: number): { ohms: number; henries: number } {
+  return { ohms: pf * z, henries: (Math.sqrt(1 - pf * pf) * z) / (2 * Math.PI * hz) };
+}

@@ -1,7 +1,9 @@
 import { seedIds } from '../ids';
 import type { Sheet } from '../sheet';
 import { sheetToGraph } from '../toGraph';
+import { controlTransformerSheet } from './control';
 import { currentTransformerSheet } from './currentTransformer';
+import { distributionTransformerSheet } from './distribution';
 import { isolationTransformerSheet } from './isolation';
 import { wirelessPairSheet, wirelessSquareDriveSheet } from './wireless';
 
@@ -12,6 +14,8 @@ export const EXAMPLES: Example[] = [
   { key: 'wireless', title: 'Wireless charging pair (85 kHz)', file: 'wireless-charging-85khz.json', make: wirelessPairSheet },
   { key: 'current-transformer', title: 'Current transformer with burden', file: 'current-transformer-burden.json', make: currentTransformerSheet },
   { key: 'wireless-square', title: 'Wireless pair, square-wave drive from rest (85 kHz)', file: 'wireless-square-drive-85khz.json', make: wirelessSquareDriveSheet },
+  { key: 'distribution', title: 'Distribution transformer from its tests (25 kVA, 11 kV)', file: 'distribution-transformer-25kva.json', make: distributionTransformerSheet },
+  { key: 'control', title: 'Control transformer per unit (250 VA, 400 V / 24 V)', file: 'control-transformer-per-unit.json', make: controlTransformerSheet },
 ];
 
 /**

@@ -4,7 +4,8 @@ import type { IdealTransformerEl } from '../graph';
 import type { Part } from '../sheet';
 import { turns, positive, type PartDef, type Prim } from './types';
 
-function coil(x: number, dir: 1 | -1): Prim[] {
+/** Four turns standing upright at x, bulging to the left (dir 1) or right (-1), between y = -20 and 20. */
+export function coil(x: number, dir: 1 | -1): Prim[] {
   const out: Prim[] = [];
   for (let i = 0; i < 4; i++) {
     const cy = -15 + 10 * i;

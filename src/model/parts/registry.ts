@@ -3,13 +3,14 @@ import type { ElementKind } from '../graph';
 import { rectOfLocal, toSheet, type Point, type Rect } from '../geometry';
 import { PART_KINDS, type Part, type PartKind } from '../sheet';
 import { ground, label, transformer } from './others';
+import { powerTransformer } from './power';
 import { isource, vsource } from './sources';
 import { switchPart } from './switch';
 import { arm, capacitor, resistor, winding } from './twoTerminal';
 import type { Mark, PartDef } from './types';
 
 export const PART_DEFS: Record<PartKind, PartDef> = {
-  resistor, winding, capacitor, vsource, isource, transformer, ground, label, arm, switch: switchPart,
+  resistor, winding, capacitor, vsource, isource, transformer, ground, label, arm, switch: switchPart, power: powerTransformer,
 };
 
 export function partDef(kind: PartKind): PartDef {
@@ -53,3 +54,4 @@ export const isCouplable = (part: Part): boolean => !!PART_DEFS[part.kind].coupl
 export const isSource = (part: Part): boolean => !!PART_DEFS[part.kind].source;
 
 export type { PartDef, Prim, FieldDef, Mark } from './types';
+export { contributes } from './types';

@@ -2,6 +2,7 @@
 import type { ElementKind, GraphElement } from '../graph';
 import type { Point, QuarterTurns, Rect } from '../geometry';
 import type { NumericField, Part, PartKind } from '../sheet';
+import type { Expansion } from '../powerExpansion';
 
 /** The symbol standard drawn: IEC 60617 (the default) or IEEE 315. */
 export type SymbolStyle = 'iec' | 'ieee';
@@ -49,13 +50,15 @@ export interface PartDef {
   pins: Point[];
   box: Rect;
   defaultRot: QuarterTurns;
-  defaults: Pick<Part, NumericField | 'dot' | 'name' | 'closed' | 'togglesS'>;
+  defaults: Pick<Part, NumericField | 'dot' | 'name' | 'closed' | 'togglesS' | 'power'>;
   fields: FieldDef[];
   draw: (part: Part, style?: SymbolStyle) => Prim[];
   /** short value text shown beside the part */
   valueText: (part: Part) => string;
   /** the graph element this part contributes, given the node of each pin */
   toElement?: (part: Part, nodes: string[]) => GraphElement;
+  /** instead of one element: the elements (and couplings) the part stands for, with inner nodes of its own */
+  expand?: (part: Part, nodes: string[]) => Expansion;
   /** a node name this part imposes on the node of its pin (ground, node label) */
   netName?: (part: Part) => string;
   /** where the polarity dot sits (local), for windings */
@@ -75,8 +78,11 @@ export interface PartDef {
   /** a node name this part carries, edited in the details panel */
   nameField?: { label: string; hint: string };
   /** an editor the details panel adds below the fields: a source's waveform, a switch's state and toggle times */
-  editor?: 'waveform' | 'switch';
+  editor?: 'waveform' | 'switch' | 'power';
 }
+
+/** Whether the part puts anything into the graph model (one element or an expansion). */
+export const contributes = (def: PartDef): boolean => !!(def.toElement || def.expand);
 
 export const positive = (what: string) => (v: number) => (v > 0 ? null : `${what} must be more than zero`);
 export const nonNegative = (what: string) => (v: number) => (v >= 0 ? null : `${what} must be zero or more`);

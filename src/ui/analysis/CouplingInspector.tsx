@@ -12,6 +12,7 @@ import { polarText, rectangularText } from './format';
 import { graphCouplingId, selectedCoupling, useSolved } from './useSolved';
 import { kRangeProblem, mRangeProblem } from './couplingRange';
 import { pairEquations } from '../../model/pairEquations';
+import { couplingFromBench, FIELDS, type BenchMethod } from '../../model/couplingMeasure';
 import './analysis.css';
 import { mutualLimit } from '../../model/mutual';
 
@@ -82,6 +83,7 @@ function Inspector({ couplingId }: { couplingId: string }) {
           }}
         />
       </div>
+      <BenchCalculator names={[windings[0].ref, windings[1].ref]} l1={l1} l2={l2} apply={(kv) => patch('k', kv)} />
       <ThreeDomains
         names={[windings[0].ref, windings[1].ref]} henries={[l1, l2]} mutual={m}
         dots={[windings[0].dot ?? 'first', windings[1].dot ?? 'first']} frequencyHz={sheet.frequencyHz}
@@ -147,6 +149,58 @@ function ThreeDomains(props: Parameters<typeof pairEquations>[0]) {
         </div>
       ))}
       <p className="muted small">The sign of the M terms is d1·d2, with d = +1 for a dot on a winding’s first terminal and −1 on its second; i(0) are the windings’ initial currents (details panel).</p>
+    </details>
+  );
+}
+
+const METHOD_LABELS: Record<BenchMethod, string> = {
+  series: 'series aiding and opposing (M = (L_aid − L_opp)/4)',
+  'open-short': 'one winding with the other open and shorted (k = √(1 − L_sc/L_oc))',
+  'voltage-ratio': 'voltage ratio with the other winding open (M = L_driven·V_open/V_driven)',
+};
+
+/** Bench readings → k and M, applied to the link as one undoable edit. */
+function BenchCalculator({ names, l1, l2, apply }: { names: [string, string]; l1: number; l2: number; apply: (k: number) => void }) {
+  const [method, setMethod] = useState<BenchMethod>('series');
+  const [vals, setVals] = useState<{ a: number | null; b: number | null }>({ a: null, b: null });
+  const [driven, setDriven] = useState<0 | 1>(0);
+  const [labels, unit] = [FIELDS[method].slice(0, 2), FIELDS[method][2]];
+  const answer = vals.a !== null && vals.b !== null ? couplingFromBench({ method, a: vals.a, b: vals.b, driven }, l1, l2) : null;
+  const entry = (key: 'a' | 'b', label: string) => (
+    <Field key={`${method}-${key}`} label={label} unit={unit} testId={`bench-${key}`} value={vals[key] === null ? '' : formatEditable(vals[key]!, unit)}
+      apply={async (t) => {
+        const r = await quantity(t, unit, (v) => (Number.isFinite(v) && v >= 0 ? null : `${label} must be zero or more`));
+        if ('reason' in r) return r.reason;
+        setVals((v) => ({ ...v, [key]: r.value }));
+        return null;
+      }} />
+  );
+  return (
+    <details className="bench" data-testid="bench-calculator">
+      <summary>k and M from bench readings</summary>
+      <fieldset className="radio">
+        <legend>Measured</legend>
+        {(Object.keys(METHOD_LABELS) as BenchMethod[]).map((m) => (
+          <label key={m}><input type="radio" name="bench-method" data-testid={`bench-method-${m}`} checked={method === m} onChange={() => { setMethod(m); setVals({ a: null, b: null }); }} /> {METHOD_LABELS[m]}</label>
+        ))}
+      </fieldset>
+      {method === 'voltage-ratio' && (
+        <label className="field"><span className="label">driven winding</span>
+          <select data-testid="bench-driven" value={driven} onChange={(e) => setDriven(Number(e.target.value) as 0 | 1)}>
+            <option value={0}>{names[0]}</option><option value={1}>{names[1]}</option>
+          </select>
+        </label>
+      )}
+      {entry('a', labels[0])}
+      {entry('b', labels[1])}
+      {answer && !answer.ok && <p className="field-error" role="alert" data-testid="bench-problem">{answer.reason}</p>}
+      {answer && answer.ok && (
+        <div data-testid="bench-answer">
+          <p>k = {Number(answer.k.toPrecision(5))}, M = {formatSI(answer.m, 'H', 5)} (with {names[0]} = {formatSI(l1, 'H', 4)}, {names[1]} = {formatSI(l2, 'H', 4)})</p>
+          {answer.note && <p className="muted small">{answer.note}</p>}
+          <button type="button" className="cmd" data-testid="bench-apply" onClick={() => apply(answer.k)}>Apply k = {Number(answer.k.toPrecision(5))} to the link</button>
+        </div>
+      )}
     </details>
   );
 }
