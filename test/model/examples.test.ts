@@ -34,6 +34,12 @@ const FIGURES: Record<string, (sheet: ReturnType<(typeof EXAMPLES)[number]['make
     const resistive = Math.abs(z.im) < 1e-3 * z.re ? ' resistive' : '';
     return `input ${formatSI(z.re, 'Ω', 3)}${resistive}; ${formatSI(two(r, 'Rbat').power.watts, 'W', 4)} into the load; efficiency ${(efficiency(r, 'Vinv', 'Rbat')! * 100).toFixed(1)} %`;
   },
+  // the phasor is the square wave's fundamental: the steady state the time response settles into
+  'wireless-square': (sheet) => {
+    const m = parseGraphModel(deriveCircuit(sheet).model);
+    const r = solveGraph(m);
+    return `fundamental ${formatSI(abs(two(r, 'Vinv').voltage), 'V', 4)} rms; ${formatSI(two(r, 'Rbat').power.watts, 'W', 4)} into the load at the fundamental; efficiency ${(efficiency(r, 'Vinv', 'Rbat')! * 100).toFixed(1)} %`;
+  },
   'current-transformer': (sheet) => {
     const c = deriveCircuit(sheet).model;
     const r = solveGraph(parseGraphModel(c));

@@ -3,7 +3,7 @@ import type { Sheet } from '../sheet';
 import { sheetToGraph } from '../toGraph';
 import { currentTransformerSheet } from './currentTransformer';
 import { isolationTransformerSheet } from './isolation';
-import { wirelessPairSheet } from './wireless';
+import { wirelessPairSheet, wirelessSquareDriveSheet } from './wireless';
 
 export interface Example { key: string; title: string; file: string; make: () => Sheet }
 
@@ -11,6 +11,7 @@ export const EXAMPLES: Example[] = [
   { key: 'isolation', title: 'Bench isolation transformer (230 V, 50 Hz)', file: 'isolation-transformer-230v.json', make: isolationTransformerSheet },
   { key: 'wireless', title: 'Wireless charging pair (85 kHz)', file: 'wireless-charging-85khz.json', make: wirelessPairSheet },
   { key: 'current-transformer', title: 'Current transformer with burden', file: 'current-transformer-burden.json', make: currentTransformerSheet },
+  { key: 'wireless-square', title: 'Wireless pair, square-wave drive from rest (85 kHz)', file: 'wireless-square-drive-85khz.json', make: wirelessSquareDriveSheet },
 ];
 
 /**

@@ -4,14 +4,39 @@
  * load. The graph file examples/graphs/wireless-charging-85khz.json is
  * written from this sheet.
  */
+import type { Part } from '../sheet';
 import { at, sheetBuilder } from './builder';
 
 export function wirelessPairSheet() {
+  return tunedPairSheet('Wireless charging pair, series-series tuned at 85 kHz', { value: 50, phaseDeg: 0 });
+}
+
+/** The inverter's DC bus: a full bridge drives the pad with ±SQUARE_BUS_V. */
+export const SQUARE_BUS_V = 50;
+
+/**
+ * Example: the same tuned pair driven from rest by a full-bridge inverter, a
+ * ±50 V square wave at 85 kHz (zero-length edges), high for the first half of
+ * each period. Its fundamental is (4/π)·50 V peak = 45.02 V rms (Fourier
+ * series of a square wave, standard result), a sine lagging the cosine
+ * reference by 90°; that fundamental is the source's phasor, so the phasor
+ * view shows the steady state the time response settles into.
+ */
+export function wirelessSquareDriveSheet() {
+  const fundamentalRms = (4 / Math.PI) * SQUARE_BUS_V / Math.SQRT2;
+  return tunedPairSheet('Wireless charging pair driven by a square wave from rest (85 kHz)', {
+    value: fundamentalRms,
+    phaseDeg: -90,
+    waveform: { shape: 'square', low: -SQUARE_BUS_V, high: SQUARE_BUS_V, frequencyHz: 85e3 },
+  });
+}
+
+function tunedPairSheet(title: string, source: Partial<Part>) {
   // tuned exactly: series resonance ω0 = 1/sqrt(LC) at 85 kHz (about 58.43 nF with 60 µH)
   const C = 1 / ((2 * Math.PI * 85e3) ** 2 * 60e-6);
-  const b = sheetBuilder('Wireless charging pair, series-series tuned at 85 kHz', 85e3);
+  const b = sheetBuilder(title, 85e3);
   const top = 100, bottom = 300;
-  const v = b.part('vsource', 'Vinv', 100, 200, { value: 50, phaseDeg: 0 });
+  const v = b.part('vsource', 'Vinv', 100, 200, source);
   const cp = b.part('capacitor', 'Cp', 200, top, { value: C });
   const rcp = b.part('resistor', 'Rcp', 300, top, { value: 0.05 });
   const l1 = b.part('winding', 'Lpad', 400, 200, { value: 60e-6, dot: 'first' });
