@@ -3,6 +3,8 @@ import type { Sheet } from '../sheet';
 import { sheetToGraph } from '../toGraph';
 import { currentTransformerSheet } from './currentTransformer';
 import { isolationTransformerSheet } from './isolation';
+import { currentTransformerOpensSheet } from './ctOpens';
+import { transformerSwitchInSheet } from './switchIn';
 import { wirelessPairSheet, wirelessSquareDriveSheet } from './wireless';
 
 export interface Example { key: string; title: string; file: string; make: () => Sheet }
@@ -12,6 +14,8 @@ export const EXAMPLES: Example[] = [
   { key: 'wireless', title: 'Wireless charging pair (85 kHz)', file: 'wireless-charging-85khz.json', make: wirelessPairSheet },
   { key: 'current-transformer', title: 'Current transformer with burden', file: 'current-transformer-burden.json', make: currentTransformerSheet },
   { key: 'wireless-square', title: 'Wireless pair, square-wave drive from rest (85 kHz)', file: 'wireless-square-drive-85khz.json', make: wirelessSquareDriveSheet },
+  { key: 'switch-in', title: 'Transformer switched in at the crest and at the zero (230 V, 50 Hz)', file: 'transformer-switch-in-230v.json', make: transformerSwitchInSheet },
+  { key: 'ct-opens', title: 'Current transformer whose burden is opened (spike)', file: 'current-transformer-burden-opens.json', make: currentTransformerOpensSheet },
 ];
 
 /**
