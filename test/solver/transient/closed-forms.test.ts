@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { parseGraphModel, solveGraph, transientGraph, type TransientResult } from '../../../src/solver';
+import { worstDeviation } from '../../helpers';
+import { parseGraphModel, solveGraph, transientGraph } from '../../../src/solver';
 import type { GraphElement, GraphModel, TwoTerminalResult } from '../../../src/model/graph';
 
 /**
@@ -13,17 +14,7 @@ import type { GraphElement, GraphModel, TwoTerminalResult } from '../../../src/m
 const model = (elements: GraphElement[], frequencyHz = 50, amplitudes: 'rms' | 'peak' = 'peak'): GraphModel =>
   parseGraphModel({ schema: 'coilwright.graph/1', frequencyHz, amplitudes, ground: 'gnd', elements, couplings: [] });
 
-/** Largest |a − b| over the samples, and the largest |b| (P). */
-function worst(r: TransientResult, got: number[], exact: (t: number) => number) {
-  let err = 0;
-  let peak = 0;
-  r.timesS.forEach((t, k) => {
-    const e = exact(t);
-    err = Math.max(err, Math.abs(got[k] - e));
-    peak = Math.max(peak, Math.abs(e));
-  });
-  return { err, peak };
-}
+const worst = (r: { timesS: number[] }, got: number[], exact: (t: number) => number) => worstDeviation(r.timesS, got, exact);
 
 describe('time response, closed forms', () => {
   const R = 10;

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { parseGraphModel, solveGraph, transientGraph, type TransientResult } from '../../../src/solver';
+import { worstDeviation } from '../../helpers';
+import { parseGraphModel, solveGraph, transientGraph } from '../../../src/solver';
 import type { GraphModel, TwoTerminalResult } from '../../../src/model/graph';
 
 /**
@@ -17,16 +18,7 @@ const W50 = 2 * Math.PI * 50;
 /** The phasor's waveform at t (rms phasor: crest √2·|X|, cosine convention of the contract). */
 const wave = (z: { re: number; im: number }, w: number) => (t: number) => Math.SQRT2 * (z.re * Math.cos(w * t) - z.im * Math.sin(w * t));
 
-function worst(r: TransientResult, got: number[], exact: (t: number) => number) {
-  let err = 0;
-  let peak = 0;
-  r.timesS.forEach((t, k) => {
-    const e = exact(t);
-    err = Math.max(err, Math.abs(got[k] - e));
-    peak = Math.max(peak, Math.abs(e));
-  });
-  return { err, peak };
-}
+const worst = (r: { timesS: number[] }, got: number[], exact: (t: number) => number) => worstDeviation(r.timesS, got, exact);
 
 describe('example: a transformer switched in at the crest and at the zero of the mains', () => {
   const m = load('transformer-switch-in-230v.json');
