@@ -2,7 +2,7 @@
 // Benchmark of the solver and the command line (`npm run bench`).
 //
 //   node scripts/bench.mjs [--sizes 100,1000,10000,100000] [--no-cli] [--no-mathjs] [--no-memory] [--full]
-//                          [--star-sizes 100000,300000,1000000] [--no-star]
+//                          [--star-sizes 100000,300000,1000000] [--no-star] [--no-transient]
 //
 // Generates RLC ladders and 2-D meshes (scripts/bench/generators.ts) into
 // bench/out/, then measures
@@ -12,6 +12,8 @@
 //   - peak memory of a fresh process that reads, solves and sweeps one model;
 //   - a star (one hub node joined to every other node, scripts/bench/generators.ts `star`) in-process at
 //     100k, 300k and 1M nodes, where cost must stay near-linear (scripts/bench/star-child.mjs);
+//   - the time response (scripts/bench-transient.mjs): engine steps per second, per-step cost against one
+//     solve with the kept factors, and the `transient` command against a fixed-step SciPy integration;
 //   - wall time of the bundled command line against the SciPy script
 //     scripts/bench/scipy_yardstick.py doing the same work from the same file.
 // Prints tables and one line per target; writes bench/out/results.json.
@@ -467,3 +469,8 @@ results.cases = cases;
 writeFileSync(join(OUT, 'results.json'), JSON.stringify(results, null, 2));
 rmSync(join(OUT, '.bundle', 'rss.txt'), { force: true });
 log(`\nload average at end ${loadavg().map((x) => x.toFixed(1)).join(' ')}; bench took ${fmt((now() - started) / 1000)} s; figures also in ${relative(ROOT, join(OUT, 'results.json'))}`);
+
+if (!flag('--no-transient')) {
+  log('\ntime response (scripts/bench-transient.mjs)');
+  spawnSync(process.execPath, [join(ROOT, 'scripts', 'bench-transient.mjs'), ...(flag('--no-cli') ? ['--no-cli'] : [])], { cwd: ROOT, stdio: 'inherit' });
+}
