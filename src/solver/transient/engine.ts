@@ -557,19 +557,12 @@ export class TransientEngine {
         if (restart === 0) h = 2 * hb;
       } else {
         // TR-BDF2 with the controlled step, landing on the target: a power-of-two part of the output step
-        let hs: number;
-        let landing: boolean;
-        if (h < room) {
-          const m = Math.ceil(room / h - 1e-9);
+        let hs = h;
+        if (hs < room) {
+          const m = Math.ceil(room / hs - 1e-9);
           hs = room / m;
-          landing = m === 1;
-        } else {
-          hs = room;
-          landing = true;
-        }
-        // a step that differs from the nominal one by the rounding of t alone is the nominal one: its matrix is
-        // then the kept factorisation (compared exactly), not a fresh one for a size a few ulps away
-        if (Math.abs(hs - h) <= 1e-10 * h) hs = h;
+        } else hs = room;
+        const landing = hs === room;
         // the value just before a jump only where the step ends on a breakpoint; elsewhere the value at the time
         const endSide = landing && target === tCorner ? -1 : 0;
         const alpha = 1 / (KAPPA * hs);
@@ -627,9 +620,7 @@ export class TransientEngine {
           rejectedAt = t;
           rejectedRatio = ratio;
           rejectedStep = hs;
-          // a power-of-two part of the output step as well, so that the retry and the steps after it find
-          // their matrix among the kept factorisations instead of factoring one for an odd size
-          h = Math.max(hMin, powerOfTwoStep(hs * Math.max(0.2, 0.9 / Math.sqrt(ratio)), H));
+          h = Math.max(hMin, hs * Math.max(0.2, 0.9 / Math.sqrt(ratio)));
           continue;
         }
         rejectedAt = -1;
