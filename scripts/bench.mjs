@@ -3,7 +3,7 @@
 //
 //   node scripts/bench.mjs [--sizes 100,1000,10000,100000] [--no-cli] [--no-mathjs] [--no-memory] [--full]
 //                          [--star-sizes 100000,300000,1000000] [--no-star] [--no-tf] [--no-forms]
-//                          [--no-phases]
+//                          [--no-phases] [--no-transient]
 //
 // Generates RLC ladders and 2-D meshes (scripts/bench/generators.ts) into
 // bench/out/, then measures
@@ -17,6 +17,8 @@
 //     unknowns, fresh factor and sweep point per model (scripts/bench/forms-child.mjs);
 //   - `tf` (poles, zeros and natural frequencies) on RLC ladders of about 20, 200 and 2,000 MNA unknowns
 //     (scripts/bench/tf-child.mjs);
+//   - the time response (scripts/bench-transient.mjs): engine steps per second, per-step cost against one
+//     solve with the kept factors, and the `transient` command against a fixed-step SciPy integration;
 //   - wall time of the bundled command line against the SciPy script
 //     scripts/bench/scipy_yardstick.py doing the same work from the same file;
 //   - where the time of the command-line `solve` goes, by phase (scripts/bench-phases.mjs).
@@ -522,3 +524,8 @@ results.cases = cases;
 writeFileSync(join(OUT, 'results.json'), JSON.stringify(results, null, 2));
 rmSync(join(OUT, '.bundle', 'rss.txt'), { force: true });
 log(`\nload average at end ${loadavg().map((x) => x.toFixed(1)).join(' ')}; bench took ${fmt((now() - started) / 1000)} s; figures also in ${relative(ROOT, join(OUT, 'results.json'))}`);
+
+if (!flag('--no-transient')) {
+  log('\ntime response (scripts/bench-transient.mjs)');
+  spawnSync(process.execPath, [join(ROOT, 'scripts', 'bench-transient.mjs'), ...(flag('--no-cli') ? ['--no-cli'] : [])], { cwd: ROOT, stdio: 'inherit' });
+}

@@ -37,3 +37,15 @@ export function model(frequencyHz: number, elements: GraphElement[], couplings: 
 export function two(result: SolveResult, id: string): TwoTerminalResult {
   return result.elements[id] as TwoTerminalResult;
 }
+
+/** Largest |got − exact| over a time response's samples, and the largest |exact| (P of the contract's accuracy rule). */
+export function worstDeviation(timesS: number[], got: number[], exact: (t: number) => number): { err: number; peak: number } {
+  let err = 0;
+  let peak = 0;
+  timesS.forEach((t, k) => {
+    const e = exact(t);
+    err = Math.max(err, Math.abs(got[k] - e));
+    peak = Math.max(peak, Math.abs(e));
+  });
+  return { err, peak };
+}

@@ -4,6 +4,12 @@ with SciPy's sparse LU (SuperLU), reading the same coilwright.graph/1 file.
 
     python3 scripts/bench/scipy_yardstick.py solve FILE.json
     python3 scripts/bench/scipy_yardstick.py sweep FILE.json --from 10 --to 100000 --points 50 --log [--probe a,b]
+    python3 scripts/bench/scipy_yardstick.py transient FILE.json --stop T --step H --probe a
+
+`transient` integrates A0·x + A1·dx/dt = b(t) (the same MNA read in the time
+domain, each source its phasor as a cosine) with the trapezoidal rule at the
+fixed step H from rest: (A0 + 2/H·A1) is factored once with splu and solved
+once per step; it prints the probed node voltages at every step.
 
 Modified nodal analysis: one unknown per non-ground node, plus a branch
 current for every voltage source, every inductor and each side of every ideal
@@ -243,9 +249,37 @@ def sweep_result(mna, freqs, probe):
             "frequenciesHz": [float(f) for f in freqs], "nodes": nodes, "elements": elements, "warnings": []}
 
 
+def transient_result(mna, stop, step, probe):
+    model = mna.model
+    w = 2.0 * math.pi * float(model["frequencyHz"])
+    crest = math.sqrt(2.0) if model["amplitudes"] == "rms" else 1.0
+    a0 = mna.a0.real.tocsc()
+    a1 = mna.a1.real.tocsc()
+    bre = (mna.b * crest).real.copy()
+    bim = (mna.b * crest).imag.copy()
+    steps = int(math.floor(stop / step * (1 + 1e-12) + 1e-9))
+    lu = splu((a0 + (2.0 / step) * a1).tocsc())
+    w_mat = ((2.0 / step) * a1 - a0).tocsr()
+    rows = [mna.idx(name) for name in probe]
+    x = np.zeros(mna.size)
+    out = np.zeros((steps + 1, len(rows)))
+    b_prev = bre.copy()  # b(0): Re(B·e^(jw·0))
+    for k in range(1, steps + 1):
+        t = k * step
+        b_now = bre * math.cos(w * t) - bim * math.sin(w * t)
+        x = lu.solve(w_mat @ x + b_prev + b_now)
+        b_prev = b_now
+        out[k] = x[rows]
+    times = [k * step for k in range(steps + 1)]
+    return {"schema": "coilwright.transient/1", "timesS": times,
+            "nodes": {name: out[:, j].tolist() for j, name in enumerate(probe)}, "elements": {}, "warnings": []}
+
+
 def main(argv):
     parser = argparse.ArgumentParser(description="SciPy sparse-LU phasor solve of a coilwright.graph/1 file")
-    parser.add_argument("command", choices=["solve", "sweep"])
+    parser.add_argument("command", choices=["solve", "sweep", "transient"])
+    parser.add_argument("--stop", type=float)
+    parser.add_argument("--step", type=float)
     parser.add_argument("file")
     parser.add_argument("--from", dest="f_from", type=float)
     parser.add_argument("--to", dest="f_to", type=float)
@@ -259,6 +293,10 @@ def main(argv):
         mna = Mna(model)
         if args.command == "solve":
             out = solve_result(mna, float(model["frequencyHz"]))
+        elif args.command == "transient":
+            if not args.stop or not args.step or not args.probe:
+                parser.error("transient needs --stop, --step and --probe")
+            out = transient_result(mna, args.stop, args.step, args.probe.split(","))
         else:
             if args.f_from is None or args.f_to is None or not args.points or args.points < 1:
                 parser.error("sweep needs --from, --to and --points")

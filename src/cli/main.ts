@@ -112,7 +112,7 @@ async function transient(model: GraphModel, cmd: TransientCommand): Promise<void
       timesS[count++] = t;
     });
     spool.finish();
-    await writeOut(transientJsonPieces({ timesS: timesS.subarray(0, count), layout, warnings, spool }));
+    await writeOut(transientJsonPieces({ timesS: timesS.subarray(0, count), layout, warnings, spool, steadyState: stream.steadyState() }));
   } finally {
     spool.close();
   }

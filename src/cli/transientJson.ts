@@ -5,7 +5,8 @@
  * slots; two real quantities share one (quantity q in slot ⌊q/2⌋, part q mod 2).
  */
 import { TRANSIENT_SCHEMA } from '../model/graph';
-import type { TransientLayout } from '../solver';
+import { STEADY_STATE_FIELD, type SteadyStateReport, type TransientLayout } from '../solver';
+import { formatJson } from './format';
 import type { ColumnSpool } from './sweepSpool';
 
 const PIECE = 4096;
@@ -36,6 +37,8 @@ export interface SpooledRun {
   layout: TransientLayout;
   warnings: string[];
   spool: ColumnSpool;
+  /** the added field `coilwright.steadyState` */
+  steadyState: SteadyStateReport;
 }
 
 export function* transientJsonPieces(r: SpooledRun): Generator<string> {
@@ -88,5 +91,6 @@ export function* transientJsonPieces(r: SpooledRun): Generator<string> {
     }
     yield '  }';
   }
-  yield `,\n  "warnings": ${r.warnings.length ? `[${r.warnings.map((w) => JSON.stringify(w)).join(', ')}]` : '[]'}\n}`;
+  yield `,\n  "warnings": ${r.warnings.length ? `[${r.warnings.map((w) => JSON.stringify(w)).join(', ')}]` : '[]'}`;
+  yield `,\n  ${JSON.stringify(STEADY_STATE_FIELD)}: ${formatJson(r.steadyState).replace(/\n/g, '\n  ')}\n}`;
 }

@@ -10,3 +10,4 @@ export { powerSummary, efficiency, type PowerRow, type PowerSummary } from './po
 export { transferFunction, TransferUsageError } from './sdomain/transfer';
 export { transientGraph, transientStream, type TransientResult, type TransientSeries, type TransientLayout } from './transient/result';
 export type { TransientOptions } from './transient/engine';
+export { STEADY_STATE_FIELD, type SteadyStateReport } from './transient/steadyState';

@@ -1,5 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { cliHarness } from './bundle';
+import { formatJson } from '../../src/cli/format';
+import { parseGraphModel, transientGraph } from '../../src/solver';
 /**
  * `transient` through the command line as a script would call it (contract:
  * time-and-s-domain.md, "transient" and "Exit status"): the output times and
@@ -74,5 +76,39 @@ describe('transient from the command line', () => {
     expect(r.status).toBe(1);
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(/"V2".*"V1"|"V1".*"V2"/);
+  });
+
+  const R = { id: 'R1', kind: 'resistor', nodes: ['a', 'gnd'], ohms: 1 };
+  const V = { id: 'V1', kind: 'voltage-source', nodes: ['a', 'gnd'], magnitude: 1, phaseDeg: 0 };
+  it.each([
+    ['a square edge longer than its half period', [{ ...V, waveform: { shape: 'square', low: 0, high: 1, frequencyHz: 1000, edgeS: 1e-3 } }, R], [], /"V1".*waveform\.edgeS/],
+    ['toggle times out of order', [V, { id: 'S1', kind: 'switch', nodes: ['a', 'b'], closed: true, togglesS: [2e-3, 1e-3] }, { ...R, nodes: ['b', 'gnd'] }], [], /"S1".*togglesS\[1\]/],
+    ['an open resistance below the closed one', [V, { id: 'S1', kind: 'switch', nodes: ['a', 'b'], closed: true, onOhms: 2, offOhms: 1 }, { ...R, nodes: ['b', 'gnd'] }], [], /"S1".*offOhms/],
+    ['an initial voltage that is not a number', [V, { id: 'C1', kind: 'capacitor', nodes: ['a', 'gnd'], farads: 1e-6, initialVolts: 'x' }], [], /"C1".*initialVolts/],
+    ['an initial current that is not finite', [V, { id: 'L1', kind: 'inductor', nodes: ['a', 'gnd'], henries: 1e-3, initialAmps: '1e999' }], [], /"L1".*initialAmps/],
+    ['--start dc where a node is reached only through capacitors (0 Hz rules)', [V, { id: 'C1', kind: 'capacitor', nodes: ['a', 'b'], farads: 1e-6 }, { id: 'C2', kind: 'capacitor', nodes: ['b', 'gnd'], farads: 1e-6 }], ['--start', 'dc'], /node "b".*0 Hz/],
+  ])('%s is refused in one line naming it (exit 1)', (_what, elements, extra, message) => {
+    const r = run(['transient', fileWith(model(elements)), '--stop', '1e-3', ...extra]);
+    expect(r.stdout).toBe('');
+    expect(r.status).toBe(1);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(message);
+  });
+
+  it('adds how far the last period is from the phasor steady state, and prints what the engine gives', () => {
+    // a 50 Hz sine into R = 10 Ω, L = 1 H (τ = 0.1 s) for 0.05 s: far from settled (steady-state.test.ts holds
+    // the figure to its closed form); the added field sits beside the contract's, which are unchanged
+    const content = { ...model([{ ...V, magnitude: 100, phaseDeg: -90 }, { ...R, nodes: ['a', 'b'], ohms: 10 }, { id: 'L1', kind: 'inductor', nodes: ['b', 'gnd'], henries: 1 }]) };
+    const file = fileWith(content);
+    const r = run(['transient', file, '--stop', '0.05', '--step', '1e-3']);
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(Object.keys(out)).toEqual(['schema', 'timesS', 'nodes', 'elements', 'warnings', 'coilwright.steadyState']);
+    expect(out['coilwright.steadyState']).toMatchObject({ sineDriven: true, frequencyHz: 50, toS: 0.05 });
+    expect(out['coilwright.steadyState'].fromS).toBeCloseTo(0.03, 12);
+    expect(out['coilwright.steadyState'].gap).toBeGreaterThan(0.3);
+    expect(r.stdout).toBe(formatJson(transientGraph(parseGraphModel(content as never), { stopS: 0.05, stepS: 1e-3, tolerance: 1e-4, start: 'given' })) + '\n');
+    const stepped = run(['transient', rl, '--stop', '0.04', '--step', '1e-3']);
+    expect(JSON.parse(stepped.stdout)['coilwright.steadyState']).toEqual({ sineDriven: false, reason: 'source "V1" has a step waveform' });
   });
 });

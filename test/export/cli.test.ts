@@ -38,7 +38,7 @@ describe('coilwright svg', () => {
   const files = readdirSync(sheets).filter((f) => f.endsWith('.json'));
 
   it('has the example sheets as files', () => {
-    expect(files.sort()).toEqual(['control-transformer-per-unit.json', 'current-transformer-burden.json', 'distribution-transformer-25kva.json', 'isolation-transformer-230v.json', 'wireless-charging-85khz.json', 'wireless-square-drive-85khz.json']);
+    expect(files.sort()).toEqual(['control-transformer-per-unit.json', 'current-transformer-burden-opens.json', 'current-transformer-burden.json', 'distribution-transformer-25kva.json', 'isolation-transformer-230v.json', 'transformer-switch-in-230v.json', 'wireless-charging-85khz.json', 'wireless-square-drive-85khz.json']);
   });
 
   for (const f of files) {

@@ -86,7 +86,7 @@ describe('sheetToSvg on the example sheets', () => {
       for (const el of model.elements) {
         const pw = result.elements[el.id].power;
         if (el.kind.endsWith('-source')) { p -= pw.watts; q -= pw.vars; }
-        if (el.kind === 'resistor' || el.kind === 'switch') loss += pw.watts;
+        if (el.kind === 'resistor' || el.kind === 'switch') loss += pw.watts; // a switch is a resistance (contract)
       }
       // ideal windings and capacitors absorb no real power, so the sources' P is the resistors' and switches' (Tellegen, 1952)
       expect(Math.abs(p - loss)).toBeLessThan(1e-9 * p);

@@ -12,7 +12,7 @@ import { EXAMPLES, exampleFiles } from '../../src/model/examples';
 import type { SolveResult, TwoTerminalResult } from '../../src/model/graph';
 import { formatSI } from '../../src/model/quantity';
 import { deriveCircuit } from '../../src/model/toGraph';
-import { efficiency, parseGraphModel, solveGraph, sourceImpedance } from '../../src/solver';
+import { efficiency, parseGraphModel, solveGraph, sourceImpedance, transientGraph } from '../../src/solver';
 import { powerReport } from '../../src/model/powerExpansion';
 
 const ROOT = resolve(__dirname, '../..');
@@ -40,6 +40,22 @@ const FIGURES: Record<string, (sheet: ReturnType<(typeof EXAMPLES)[number]['make
     const m = parseGraphModel(deriveCircuit(sheet).model);
     const r = solveGraph(m);
     return `fundamental ${formatSI(abs(two(r, 'Vinv').voltage), 'V', 4)} rms; ${formatSI(two(r, 'Rbat').power.watts, 'W', 4)} into the load at the fundamental; efficiency ${(efficiency(r, 'Vinv', 'Rbat')! * 100).toFixed(1)} %`;
+  },
+  // the time response (test/solver/transient/examples.test.ts holds it to closed forms)
+  'switch-in': (sheet) => {
+    const m = parseGraphModel(deriveCircuit(sheet).model);
+    const i = two(solveGraph(m), 'Lpzero').current;
+    const r = transientGraph(m, { stopS: 0.04, stepS: 1e-4, tolerance: 1e-4, start: 'given' }, ['Lpcrest', 'Lpzero']);
+    const first = (id: string) => Math.max(...r.elements[id].current!.map(Math.abs));
+    return `magnetising current ${formatSI(Math.SQRT2 * abs(i), 'A', 3)} peak in the steady state; first peak ${formatSI(first('Lpzero'), 'A', 3)} switched in at the zero, ${formatSI(first('Lpcrest'), 'A', 3)} at the crest`;
+  },
+  'ct-opens': (sheet) => {
+    const m = parseGraphModel(deriveCircuit(sheet).model);
+    const r = transientGraph(m, { stopS: 0.06, stepS: 1e-5, tolerance: 1e-4, start: 'given' }, ['terminal', 'Lsec']);
+    const k0 = r.timesS.findIndex((t) => Math.abs(t - 0.025) < 1e-12);
+    const v = r.nodes.terminal.map(Math.abs);
+    const crest = Math.max(...v);
+    return `${formatSI(Math.abs(r.elements.Lsec.current![k0]), 'A', 3)} in the secondary as the burden opens at 25 ms; then up to ${formatSI(crest, 'V', 3)} at ${formatSI(r.timesS[v.indexOf(crest)], 's', 3)}`;
   },
   'current-transformer': (sheet) => {
     const c = deriveCircuit(sheet).model;

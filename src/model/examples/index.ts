@@ -5,6 +5,8 @@ import { controlTransformerSheet } from './control';
 import { currentTransformerSheet } from './currentTransformer';
 import { distributionTransformerSheet } from './distribution';
 import { isolationTransformerSheet } from './isolation';
+import { currentTransformerOpensSheet } from './ctOpens';
+import { transformerSwitchInSheet } from './switchIn';
 import { wirelessPairSheet, wirelessSquareDriveSheet } from './wireless';
 
 export interface Example { key: string; title: string; file: string; make: () => Sheet }
@@ -16,6 +18,8 @@ export const EXAMPLES: Example[] = [
   { key: 'wireless-square', title: 'Wireless pair, square-wave drive from rest (85 kHz)', file: 'wireless-square-drive-85khz.json', make: wirelessSquareDriveSheet },
   { key: 'distribution', title: 'Distribution transformer from its tests (25 kVA, 11 kV)', file: 'distribution-transformer-25kva.json', make: distributionTransformerSheet },
   { key: 'control', title: 'Control transformer per unit (250 VA, 400 V / 24 V)', file: 'control-transformer-per-unit.json', make: controlTransformerSheet },
+  { key: 'switch-in', title: 'Transformer switched in at the crest and at the zero (230 V, 50 Hz)', file: 'transformer-switch-in-230v.json', make: transformerSwitchInSheet },
+  { key: 'ct-opens', title: 'Current transformer whose burden is opened (spike)', file: 'current-transformer-burden-opens.json', make: currentTransformerOpensSheet },
 ];
 
 /**

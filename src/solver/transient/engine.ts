@@ -513,6 +513,10 @@ export class TransientEngine {
     let steps = 0;
     let rejectedAt = -1; // the time of the last rejected step, and its error ratio
     let rejectedRatio = 0;
+    let rejectedStep = 0; // the step that was rejected there
+    // per unknown, the rounding its error estimate has shown: |estimate|·h at a step whose estimate did not
+    // fall when the step was cut (rounding through the matrix grows as 1/h, the truncation error falls as h³)
+    const noiseC = new Float64Array(n);
     while (k <= outputs) {
       const tOut = k * H;
       const tCorner = c < corners.length ? corners[c] : Infinity;
@@ -598,7 +602,7 @@ export class TransientEngine {
           let worst = 0;
           for (let i = 0; i < n; i++) {
             const scale = Math.max(this.peak[i], Math.abs(x1[i]), i < nodeCount ? floorV : floorI);
-            const e = noise ? Math.max(0, Math.abs(err[i]) - noise[i]) : Math.abs(err[i]);
+            const e = Math.max(0, Math.abs(err[i]) - Math.max(noise ? noise[i] : 0, noiseC[i] / hs));
             const r = e / (share * scale);
             if (r > worst) worst = r;
           }
@@ -615,10 +619,12 @@ export class TransientEngine {
           // rejected: a smaller step from the same point (error ∝ h² per unit step)
           rejectedAt = t;
           rejectedRatio = ratio;
+          rejectedStep = hs;
           h = Math.max(hMin, hs * Math.max(0.2, 0.9 / Math.sqrt(ratio)));
           continue;
         }
         rejectedAt = -1;
+        if (noiseOnly) for (let i = 0; i < n; i++) noiseC[i] = Math.max(noiseC[i], Math.abs(err[i]) * hs);
         for (let i = 0; i < n; i++) dx[i] = (x1[i] - A2 * xg[i] + B2 * x[i]) * alpha;
         x.set(x1);
         fq.set(f1);
@@ -626,7 +632,9 @@ export class TransientEngine {
         t = t1;
         // the next step: grow or shrink by the error, in powers of two of the output step so that it stays fixed
         // (measured from the nominal step: the landed step is a little shorter and must not pull it down)
-        const base = Math.max(h, hs);
+        // after a rejection that proved to be rounding, from the rejected step: rounding shrinks as the step
+        // grows (it is |x|·eps/h through the matrix), so shrinking again would only feed it
+        const base = noiseOnly ? Math.max(h, hs, rejectedStep) : Math.max(h, hs);
         const want = noiseOnly ? 2 * base : ratio > 0 ? base * Math.min(2, Math.max(0.2, 0.9 / Math.sqrt(ratio * (hs / base) ** 2))) : 2 * base;
         h = powerOfTwoStep(want * (1 + 1e-9), H);
         while (h < hMin) h *= 2;

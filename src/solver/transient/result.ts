@@ -9,6 +9,7 @@ import { nameTable } from '../../model/names';
 import { defOf } from '../elements/registry';
 import { ProbeError } from '../phasor/sweep';
 import { TransientEngine, type Sample, type TransientOptions } from './engine';
+import { STEADY_STATE_FIELD, SteadyStateWatch, type SteadyStateReport } from './steadyState';
 
 export interface TransientLayout {
   nodes: string[];
@@ -34,6 +35,8 @@ export interface TransientResult {
   nodes: Record<string, number[]>;
   elements: Record<string, TransientSeries>;
   warnings: string[];
+  /** added field: how far the last period is from the phasor steady state (steadyState.ts) */
+  [STEADY_STATE_FIELD]: SteadyStateReport;
 }
 
 export function transientLayout(engine: TransientEngine, probe?: string[]): TransientLayout {
@@ -111,16 +114,21 @@ export function transientStream(model: GraphModel, options: TransientOptions, pr
   const engine = new TransientEngine(model, options);
   const layout = transientLayout(engine, probe);
   const values = new Float64Array(layout.width);
+  const outputs = Math.floor((options.stopS / options.stepS) * (1 + 1e-12) + 1e-9);
+  const watch = new SteadyStateWatch(model, layout, options.stopS, outputs * options.stepS);
   return {
     layout,
     engine,
     run(sink: (t: number, values: Float64Array) => void): string[] {
       engine.run((s) => {
         readSample(engine, layout, s, values);
+        watch.observe(s.t, values);
         sink(s.t, values);
       });
       return engine.warnings;
     },
+    /** after the run: how far its last period is from the phasor steady state */
+    steadyState: (): SteadyStateReport => watch.report(),
   };
 }
 
@@ -143,5 +151,5 @@ export function transientGraph(model: GraphModel, options: TransientOptions, pro
     else elements[e.id] = { voltages: [columns[q], columns[q + 1]], currents: [columns[q + 2], columns[q + 3]], power: columns[q + 4] };
     q += e.ports === 1 ? 3 : 5;
   }
-  return { schema: TRANSIENT_SCHEMA, timesS, nodes, elements, warnings };
+  return { schema: TRANSIENT_SCHEMA, timesS, nodes, elements, warnings, [STEADY_STATE_FIELD]: stream.steadyState() };
 }

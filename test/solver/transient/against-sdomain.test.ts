@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { worstDeviation } from '../../helpers';
 import fc from 'fast-check';
-import { parseGraphModel, transferFunction, transientGraph, type TransientResult } from '../../../src/solver';
+import { parseGraphModel, transferFunction, transientGraph } from '../../../src/solver';
 import type { GraphElement, GraphModel, TransferResult } from '../../../src/model/graph';
 import { build, circuitSpec } from '../../reference/randomCircuits';
 
@@ -57,16 +58,7 @@ const stepped = (m: GraphModel, input: string): GraphModel => ({
   ),
 });
 
-function compare(r: TransientResult, got: number[], exact: (t: number) => number): { err: number; peak: number } {
-  let err = 0;
-  let peak = 0;
-  r.timesS.forEach((t, k) => {
-    const e = exact(t);
-    err = Math.max(err, Math.abs(got[k] - e));
-    peak = Math.max(peak, Math.abs(e));
-  });
-  return { err, peak };
-}
+const compare = (r: { timesS: number[] }, got: number[], exact: (t: number) => number) => worstDeviation(r.timesS, got, exact);
 
 describe('the time response is the inverse of the s-domain answer', () => {
   it('a loaded coupled pair stepped at its primary', () => {
