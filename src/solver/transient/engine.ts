@@ -102,6 +102,8 @@ export class TransientEngine {
   private peakI = 0;
   /** steps taken by the last run (benchmarks) */
   steps = 0;
+  /** factorisations of G + α·C made since the engine was built (benchmarks; the cache keeps the others) */
+  factorCount = 0;
   private jumpNotes: string[] = [];
   private readonly drift: Float64Array;
   private readonly noise: Float64Array;
@@ -166,6 +168,7 @@ export class TransientEngine {
         return f;
       }
     }
+    this.factorCount++;
     const { g, c } = this.d;
     const vals = this.values;
     for (let s = 0; s < vals.length; s++) vals[s] = g[s] + alpha * c[s];
