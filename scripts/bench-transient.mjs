@@ -85,7 +85,7 @@ for (const [nodes, outSteps] of sizes) {
   rows.push(row);
   console.log(
     `${String(nodes).padStart(7)} nodes × ${String(outSteps).padStart(6)} output steps: ${steps} engine steps (${fmt(steps / (runMs / 1000), 0)} steps/s), ` +
-      `${fmt(runMs, 0)} ms in-process; ${fmt(row.perStepMs * 1000, 1)} µs per step = ${fmt(row.perStepMs / solveMs, 2)} × one solve (${fmt(solveMs * 1000, 1)} µs); ` +
+      `${row.factors} factorisations, ${fmt(runMs, 0)} ms in-process; ${fmt(row.perStepMs * 1000, 1)} µs per step = ${fmt(row.perStepMs / solveMs, 2)} × one solve (${fmt(solveMs * 1000, 1)} µs); ` +
       `command line ${fmt(row.cliMs, 0)} ms, SciPy fixed-step ${fmt(row.pyMs, 0)} ms (${fmt(outSteps / (row.pyMs / 1000), 0)} steps/s)${row.note ? ` [${row.note}]` : ''}`,
   );
 }

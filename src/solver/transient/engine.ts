@@ -102,6 +102,8 @@ export class TransientEngine {
   private peakI = 0;
   /** steps taken by the last run (benchmarks) */
   steps = 0;
+  /** factorisations of G + α·C made since the engine was built (benchmarks; the cache keeps the others) */
+  factorCount = 0;
   private jumpNotes: string[] = [];
   private readonly drift: Float64Array;
   private readonly noise: Float64Array;
@@ -153,6 +155,16 @@ export class TransientEngine {
     return this.d;
   }
 
+  /**
+   * The α of a kept factorisation (present switch states) within a relative 1e-9 of `alpha` and not below
+   * `atLeast` (a floor on α is a ceiling on the step), else `alpha` itself.
+   */
+  private keptAlpha(alpha: number, atLeast: number): number {
+    for (const f of this.cache)
+      if (f.state === this.stateVersion && f.alpha >= atLeast && Math.abs(f.alpha - alpha) <= 1e-9 * alpha) return f.alpha;
+    return alpha;
+  }
+
   /** The factorisation of G + α·C for the present switch states (cached), and W = α·C − G beside it. */
   private factored(alpha: number): Factored {
     const cache = this.cache;
@@ -166,6 +178,7 @@ export class TransientEngine {
         return f;
       }
     }
+    this.factorCount++;
     const { g, c } = this.d;
     const vals = this.values;
     for (let s = 0; s < vals.length; s++) vals[s] = g[s] + alpha * c[s];
@@ -565,7 +578,15 @@ export class TransientEngine {
         const landing = hs === room;
         // the value just before a jump only where the step ends on a breakpoint; elsewhere the value at the time
         const endSide = landing && target === tCorner ? -1 : 0;
-        const alpha = 1 / (KAPPA * hs);
+        let alpha = 1 / (KAPPA * hs);
+        // a step that differs from a kept one by the rounding of t alone takes that one's matrix (the cache compares
+        // exactly); a landing step still ends on its target, so its kept step may be shorter than the room left
+        // but not longer, beyond the few ulps that t itself cannot resolve
+        const kept = this.keptAlpha(alpha, landing ? 1 / (KAPPA * (room + 4 * ulp(target))) : 0);
+        if (kept !== alpha) {
+          alpha = kept;
+          hs = 1 / (KAPPA * alpha);
+        }
         const f = this.factored(alpha);
         const tg = t + GAMMA * hs;
         t1 = landing ? target : t + hs;
@@ -700,6 +721,13 @@ export class TransientEngine {
     this.noteJumps(before, after, t, drift);
     this.track(x);
   }
+}
+
+/** The spacing of doubles at |v| (one unit in the last place). */
+function ulp(v: number): number {
+  const a = Math.abs(v);
+  if (!(a > 0)) return Number.MIN_VALUE;
+  return Math.pow(2, Math.floor(Math.log2(a)) - 52);
 }
 
 /** The largest H·2^j (j an integer, possibly negative) not above `want`. */
