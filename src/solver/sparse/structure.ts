@@ -248,7 +248,16 @@ export class LuCore {
     const drow = this.diagOf[col];
     let ipiv = imax;
     if (diag2 > 0 && diag2 >= tol2 * cmax2) ipiv = drow;
-    else if (ipiv !== drow) {
+    // a node and its branch (LuSymbolic.prefer crosswise): the larger of the crosswise entry and the own
+    // diagonal, both within the pair (partial pivoting within the 2 × 2 block, growth at most 2 per step)
+    if (ipiv === drow && drow !== col && this.prefer[col] === drow && this.pinv[col] < 0) {
+      const w = this.w;
+      const xr = this.x[w * col];
+      const xi = w === 2 ? this.x[w * col + 1] : 0;
+      const own2 = xr * xr + xi * xi;
+      if (own2 > diag2) ipiv = col;
+    }
+    if (ipiv !== drow) {
       const c2 = this.ownerOf[ipiv];
       this.diagOf[c2] = drow;
       this.ownerOf[drow] = c2;
