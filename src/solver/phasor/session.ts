@@ -122,7 +122,7 @@ export class SolverSession {
       previous.re = new Float64Array(0);
       previous.im = new Float64Array(0);
     } else {
-      this.symbolic = analyze(this.mna.pattern);
+      this.symbolic = analyze(this.mna.pattern, { branchFrom: this.mna.nodeCount });
       this.lu = new ComplexSparseLU(this.symbolic, LU_OPTIONS);
       this.re = new Float64Array(this.mna.pattern.rowIdx.length);
       this.im = new Float64Array(this.mna.pattern.rowIdx.length);
@@ -256,13 +256,18 @@ export class SolverSession {
         [at],
       );
     }
-    const what = this.mna.unknownLabel(column);
+    let what = this.mna.unknownLabel(column);
     const resonance = exactResonance(this.model, frequencyHz);
     if (resonance) {
       const { inductor: l, capacitor: cap } = resonance;
       const el = what.kind === 'element' ? this.model.elements.find((e) => e.id === what.id) : undefined;
       const subject = what.kind === 'node' ? `node "${what.id}": its voltage` : `element "${what.id}" (${el!.kind}): its current`;
-      const across = el && sourceRole(el) === 'voltage' ? ` across the ideal voltage source "${el.id}"` : el && sourceRole(el) === 'current' ? ` driven by the ideal current source "${el.id}"` : '';
+      // the source the resonant pair sits across (both its nodes among theirs), whichever unknown the LU's
+      // order met the zero pivot at
+      const pairNodes = new Set(this.model.elements.filter((e) => e.id === l || e.id === cap).flatMap((e) => e.nodes));
+      const source = el && sourceRole(el) ? el : this.model.elements.find((e) => sourceRole(e) && e.nodes.every((n) => pairNodes.has(n)));
+      const role = source ? sourceRole(source) : undefined;
+      const across = role === 'voltage' ? ` across the ideal voltage source "${source!.id}"` : role === 'current' ? ` driven by the ideal current source "${source!.id}"` : '';
       return new ModelRefusal(
         `${subject} is undetermined at ${frequencyHz} Hz because "${l}" and "${cap}" are in exact resonance there (ω²·L·C = 1)${across}, and lossless parts in exact resonance have a defined answer only if a resistance breaks it; add a resistance to "${l}" or "${cap}" (in series or across), or change the frequency`,
         [what, { kind: 'element', id: l }, { kind: 'element', id: cap }],
@@ -272,6 +277,13 @@ export class SolverSession {
     const touched = new Set(what.kind === 'node' ? [what.id] : this.model.elements.find((e) => e.id === what.id)!.nodes);
     const byId = new Map(this.model.elements.map((e) => [e.id, e]));
     const perfect = perfectCouplings(this.model).filter((c) => c.windings.some((w) => byId.get(w)!.nodes.some((n) => touched.has(n))));
+    // a winding of such a coupling (where the LU's order met the zero pivot) under an ideal voltage on its own
+    // nodes: the refusal names that source, the contradicting drive, instead
+    if (what.kind === 'element' && isWinding(byId.get(what.id)!) && perfect.some((c) => c.windings.includes(what.id))) {
+      const own = byId.get(what.id)!.nodes.filter((n) => n !== this.model.ground);
+      const source = this.model.elements.find((e) => sourceRole(e) === 'voltage' && e.nodes.some((n) => own.includes(n)));
+      if (source) what = { kind: 'element', id: source.id };
+    }
     if (perfect.length && !(what.kind === 'element' && isWinding(byId.get(what.id)!))) {
       const named = perfect.map((c) => `"${c.id}" (windings ${quotedList(c.windings)}, k = 1)`).join(', ');
       const subject = what.kind === 'node' ? `node "${what.id}": its voltage` : `element "${what.id}" (${byId.get(what.id)!.kind}): its current`;

@@ -53,6 +53,8 @@ export class LuCore {
   readonly prow: Int32Array;
   /** ident[i] = i: the row map of a column already in pivot positions */
   readonly ident: Int32Array;
+  /** the row each column's pivot prefers before any pivot is chosen (LuSymbolic.prefer; else ident) */
+  private readonly prefer: Int32Array;
   // L: unit lower, by column, row indices in pivot positions after a factorisation
   readonly Lp: Int32Array;
   Li: Int32Array;
@@ -91,6 +93,7 @@ export class LuCore {
     this.pinv = new Int32Array(n);
     this.prow = new Int32Array(n);
     this.ident = identity(n);
+    this.prefer = sym.prefer ?? this.ident;
     this.Lp = new Int32Array(n + 1);
     this.Up = new Int32Array(n + 1);
     // the Cholesky count of A + A^T is exact for diagonal pivots; off-diagonal ones (branch rows) add a little
@@ -114,8 +117,9 @@ export class LuCore {
     this.pstack = new Int32Array(n);
     this.reach = new Int32Array(n);
     this.lpend = new Int32Array(n);
-    this.diagOf = this.ident.slice();
+    this.diagOf = this.prefer.slice();
     this.ownerOf = this.ident.slice();
+    for (let c = 0; c < n; c++) this.ownerOf[this.diagOf[c]] = c;
     this.pinv.fill(-1);
     this.x.fill(0);
     this.lnz = 0;
@@ -244,7 +248,16 @@ export class LuCore {
     const drow = this.diagOf[col];
     let ipiv = imax;
     if (diag2 > 0 && diag2 >= tol2 * cmax2) ipiv = drow;
-    else if (ipiv !== drow) {
+    // a node and its branch (LuSymbolic.prefer crosswise): the larger of the crosswise entry and the own
+    // diagonal, both within the pair (partial pivoting within the 2 × 2 block, growth at most 2 per step)
+    if (ipiv === drow && drow !== col && this.prefer[col] === drow && this.pinv[col] < 0) {
+      const w = this.w;
+      const xr = this.x[w * col];
+      const xi = w === 2 ? this.x[w * col + 1] : 0;
+      const own2 = xr * xr + xi * xi;
+      if (own2 > diag2) ipiv = col;
+    }
+    if (ipiv !== drow) {
       const c2 = this.ownerOf[ipiv];
       this.diagOf[c2] = drow;
       this.ownerOf[drow] = c2;
