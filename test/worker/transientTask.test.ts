@@ -108,8 +108,14 @@ describe('the time view\'s run in the analysis worker', () => {
       { id: 'Rb', kind: 'resistor', nodes: ['x', 'gnd'], ohms: 1 },
     ] as GraphModel['elements'], [{ id: 'K', windings: ['Lp', 'Ls'], k: 0.999 }]);
     const a = transientRun(m, { stopS: 0.04, samples: 4000 });
-    const c = timeCautions(m, a, a.steady).find((x) => x.kind === 'open-burden')!;
+    const all = timeCautions(m, a, a.steady).filter((x) => x.kind === 'open-burden');
+    // one caution for the switch, naming the winding it opens (not the primary, which shares its ground)
+    expect(all).toHaveLength(1);
+    const c = all[0];
     expect(c.element).toBe('S1');
+    expect(c.text).toMatch(/winding Ls /);
+    // its ring after the opening is that caution's, not an energising current against the open circuit's steady state
+    expect(timeCautions(m, a, a.steady).filter((x) => x.kind === 'inrush').map((x) => x.element)).toEqual(['Lp']);
     expect(c.atS).toBeGreaterThanOrEqual(0.025);
     // open: the secondary's open-circuit voltage ωM·I = 2π·50·(0.999·√(1e-4·1))·100·√2 ≈ 443 V peak (coupled windings, open secondary)
     const openPeak = 2 * Math.PI * 50 * 0.999 * Math.sqrt(1e-4) * 100 * Math.SQRT2;

@@ -35,32 +35,41 @@ export function timeCautions(model: GraphModel, a: TransientAnswer, steady: Solv
   const series = (id: string) => a.elements.find((e) => e.id === id);
   // the ELV limit as a peak: 50 V RMS AC (√2·50 V peak) or 120 V ripple-free DC (IEC 61140, from memory)
   const limit = model.frequencyHz > 0 ? ELV_AC_RMS * Math.SQRT2 : 120;
+  // windings whose circuit is opened: their current after the opening is the ring of that caution, not an inrush
+  const opened = new Set<string>();
   for (const sw of model.elements) {
     if (sw.kind !== 'switch') continue;
     const toggles = sw.togglesS ?? [];
     const open = (t: number) => !closedAt(sw.closed, toggles, t);
     if (!a.timesS.some((t) => open(t))) continue;
+    // one caution per switch, naming the winding in its circuit that rises highest while it is open (a winding
+    // sharing the ground with it on the other side of the core is in the same section, but sees little)
+    const sv = series(sw.id);
+    if (!sv) continue;
+    let worst: { id: string; winding: { peak: number; at: number }; closedPeak: { peak: number; at: number } } | null = null;
     for (const w of model.elements) {
       if (w.kind !== 'inductor' || !coupled.has(w.id) || section(w.nodes[0]) !== section(sw.nodes[0])) continue;
-      const sv = series(sw.id);
       const wv = series(w.id);
-      if (!sv || !wv) continue;
-      const across = peakOver(a.timesS, sv.voltage[0], open);
+      if (!wv) continue;
       const winding = peakOver(a.timesS, wv.voltage[0], open);
-      const closedPeak = peakOver(a.timesS, wv.voltage[0], (t) => !open(t));
-      if (Math.abs(across.peak) <= limit && Math.abs(winding.peak) <= limit) continue;
-      const ratio = Math.abs(closedPeak.peak) > 0 ? ` (${(Math.abs(winding.peak) / Math.abs(closedPeak.peak)).toPrecision(3)}× its peak while ${sw.id} is closed)` : '';
-      out.push({
-        kind: 'open-burden', hazard: true, element: sw.id, peak: across.peak, atS: across.at,
-        head: 'Open winding circuit',
-        text: `While ${sw.id} is open, ${sw.id} sees a peak of ${formatSI(Math.abs(across.peak), 'V', 4)} at ${formatSI(across.at, 's', 4)} and winding ${w.id} ${formatSI(Math.abs(winding.peak), 'V', 4)} at ${formatSI(winding.at, 's', 4)}${ratio}, above extra-low voltage. An opened current-transformer secondary develops dangerous voltage: keep the burden connected or the winding shorted. This model is linear: a real core saturates and the spike is sharper. ${CODES}`,
-      });
+      if (!worst || Math.abs(winding.peak) > Math.abs(worst.winding.peak)) worst = { id: w.id, winding, closedPeak: peakOver(a.timesS, wv.voltage[0], (t) => !open(t)) };
     }
+    if (!worst) continue;
+    const { id, winding, closedPeak } = worst;
+    opened.add(id);
+    const across = peakOver(a.timesS, sv.voltage[0], open);
+    if (Math.abs(across.peak) <= limit && Math.abs(winding.peak) <= limit) continue;
+    const ratio = Math.abs(closedPeak.peak) > 0 ? ` (${(Math.abs(winding.peak) / Math.abs(closedPeak.peak)).toPrecision(3)}× its peak while ${sw.id} is closed)` : '';
+    out.push({
+      kind: 'open-burden', hazard: true, element: sw.id, peak: across.peak, atS: across.at,
+      head: 'Open winding circuit',
+      text: `While ${sw.id} is open, ${sw.id} sees a peak of ${formatSI(Math.abs(across.peak), 'V', 4)} at ${formatSI(across.at, 's', 4)} and winding ${id} ${formatSI(Math.abs(winding.peak), 'V', 4)} at ${formatSI(winding.at, 's', 4)}${ratio}, above extra-low voltage. An opened current-transformer secondary develops dangerous voltage: keep the burden connected or the winding shorted. This model is linear: a real core saturates and the spike is sharper. ${CODES}`,
+    });
   }
   if (steady) {
     const k = steady.amplitudes === 'rms' ? Math.SQRT2 : 1;
     for (const w of model.elements) {
-      if (w.kind !== 'inductor' || !coupled.has(w.id)) continue;
+      if (w.kind !== 'inductor' || !coupled.has(w.id) || opened.has(w.id)) continue;
       const r = steady.elements[w.id];
       const s = series(w.id);
       if (!r || !('current' in r) || !s) continue;
