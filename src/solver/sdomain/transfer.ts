@@ -240,16 +240,6 @@ export function transferFunction(model: GraphModel, inputId: string, output: str
     return { ...base, gain: 0, zeros: [], poles: [], numerator: [], denominator: [], naturalFrequencies, warnings };
   }
 
-  let zerosAll: Roots;
-  let zeroShift: number;
-  try {
-    ({ roots: zerosAll, shift: zeroShift } = pencilEigenvalues(systemPencil(d, bRows, bCoef, out), zeroPencilShift(direct, shift, rho)));
-  } catch (e) {
-    if (e instanceof PencilTooLarge) throw new ModelRefusal(`model: ${e.message}; this model is too large for tf`, [{ kind: 'model' }]);
-    if (e instanceof SingularMatrixError) throw singularRefusal(model);
-    throw e;
-  }
-  const largest = Math.max(largestNatural, scaleOf(zerosAll), 1e-6 * zeroShift);
   // gain from the test point where H is largest relative to its terms (the best conditioned)
   let best = 0;
   for (let t = 1; t < values.length; t++) {
@@ -263,9 +253,24 @@ export function transferFunction(model: GraphModel, inputId: string, output: str
       throw e;
     }
   };
-  const minimal =
-    modalTransfer(natural, zerosAll, probe, largest) ??
-    minimalRoots(zerosAll, natural, largest, probe);
+  // the modal form needs the natural frequencies and H alone; the system matrix's eigenvalues (a second
+  // dense eigensolve of the same order, the costliest step) only where it does not apply
+  let largest = largestNatural;
+  let minimal = modalTransfer(natural, { re: [], im: [] }, probe, largest);
+  if (minimal) largest = Math.max(largest, scaleOf(minimal.zeros));
+  else {
+    let zerosAll: Roots;
+    let zeroShift: number;
+    try {
+      ({ roots: zerosAll, shift: zeroShift } = pencilEigenvalues(systemPencil(d, bRows, bCoef, out), zeroPencilShift(direct, shift, rho)));
+    } catch (e) {
+      if (e instanceof PencilTooLarge) throw new ModelRefusal(`model: ${e.message}; this model is too large for tf`, [{ kind: 'model' }]);
+      if (e instanceof SingularMatrixError) throw singularRefusal(model);
+      throw e;
+    }
+    largest = Math.max(largestNatural, scaleOf(zerosAll), 1e-6 * zeroShift);
+    minimal = modalTransfer(natural, zerosAll, probe, largest) ?? minimalRoots(zerosAll, natural, largest, probe);
+  }
   minimal.zeros = cleanRoots(settleZeroCluster(minimal.zeros, largest), largest);
   const poles = sortRoots(minimal.poles);
   const zeros = sortRoots(minimal.zeros);
