@@ -4,9 +4,12 @@
  * whole circuit, on the full descriptor (G, C, B): every other independent
  * source zero, every initial value zero.
  *
- * Poles are the finite eigenvalues of the pencil (G, C); zeros are those of
- * the system matrix [[G + sC, −b], [c(s)ᵀ, d]] (H = det of it over det(G + sC),
- * by the Schur complement), whose eigenvalues include every pole the input
+ * Poles are the finite eigenvalues of the pencil (G, C) that H keeps: the
+ * modal form (modal.ts) takes each natural frequency's residue from H itself
+ * and the zeros from a small matrix of that realisation. Where that form does
+ * not apply (an improper H, a multiple pole), the zeros are the eigenvalues of
+ * the system matrix [[G + sC, −b], [c(s)ᵀ, d]] (H = det of it over
+ * det(G + sC), by the Schur complement), which include every pole the input
  * does not reach or the output does not see. Pairs that cancel are removed, so
  * the printed H is minimal; its gain comes from one direct solve at a complex
  * test point, and the factored H is checked against direct solves on the jω
