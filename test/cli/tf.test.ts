@@ -70,6 +70,40 @@ describe('tf from the command line', () => {
     expect(r.stderr).toMatch(/"V2".*"V1".*loop of voltage sources/);
   });
 
+  it('answers the far end of a 6-section RLC ladder, an all-pole H: 12 poles, no zero, H(0) = 1', () => {
+    const elements: unknown[] = [{ id: 'V1', kind: 'voltage-source', nodes: ['a0', 'gnd'], magnitude: 1, phaseDeg: 0 }];
+    for (let i = 0; i < 6; i++) {
+      elements.push({ id: `R${i}`, kind: 'resistor', nodes: [`a${i}`, `m${i}`], ohms: 1 });
+      elements.push({ id: `L${i}`, kind: 'inductor', nodes: [`m${i}`, `a${i + 1}`], henries: 1e-3 });
+      elements.push({ id: `C${i}`, kind: 'capacitor', nodes: [`a${i + 1}`, 'gnd'], farads: 1e-6 });
+    }
+    const r = run(['tf', fileWith(model(elements)), '--input', 'V1', '--output', 'node:a6']);
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    const t = JSON.parse(r.stdout);
+    expect(t.zeros).toEqual([]);
+    expect(t.poles).toHaveLength(12);
+    expect(t.numerator).toHaveLength(1);
+    expect(t.warnings).toEqual([]);
+    // with the far end open no current flows at 0 Hz, so H(0) = 1 (Kirchhoff's laws, common practice): the
+    // gain equals the product of −p over the poles, which is the denominator's constant term
+    expect(t.numerator[0] / t.denominator[12]).toBeCloseTo(1, 9);
+  });
+
+  it('refuses a pencil singular at every s (two identical windings with k = 1 in parallel), exit 1, one line', () => {
+    const f = fileWith(model([
+      { id: 'I1', kind: 'current-source', nodes: ['gnd', 'a'], magnitude: 1, phaseDeg: 0 },
+      { id: 'R1', kind: 'resistor', nodes: ['a', 'gnd'], ohms: 10 },
+      { id: 'L1', kind: 'inductor', nodes: ['a', 'gnd'], henries: 1e-3, dot: 'first' },
+      { id: 'L2', kind: 'inductor', nodes: ['a', 'gnd'], henries: 1e-3, dot: 'first' },
+    ], [{ id: 'K1', windings: ['L1', 'L2'], k: 1 }]));
+    const r = run(['tf', f, '--input', 'I1', '--output', 'node:a']);
+    expect(r.status).toBe(1);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(/"L2".*undetermined/);
+  });
+
   it('refuses a cut set of current sources (exit 1)', () => {
     const f = fileWith(model([
       { id: 'I1', kind: 'current-source', nodes: ['gnd', 'a'], magnitude: 1, phaseDeg: 0 },

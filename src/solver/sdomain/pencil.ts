@@ -310,22 +310,32 @@ export function refineRoots(p: SparsePencil, roots: Roots): Roots {
  * Finite eigenvalues of the pencil. The shift starts at a rate typical of
  * the state variables and moves to the geometric middle of the spectrum found
  * (where the relative accuracy of both ends is best) while that is more than
- * a decade away; a shift that hits a pole is moved.
+ * a decade away, unless inverse iteration polishes every root found already
+ * (each dense eigensolve is the cost that matters on a large circuit); a
+ * shift that hits a pole is moved. `start`, when given,
+ * replaces the first shift (a caller that knows where A + σE is best
+ * conditioned); a later shift that fails keeps the roots found before it.
  */
-export function pencilEigenvalues(p: SparsePencil): PencilRoots {
+export function pencilEigenvalues(p: SparsePencil, start?: number): PencilRoots {
   const cols = stateColumns(p);
   if (cols.length === 0) return { roots: { re: [], im: [] }, shift: 1 };
   if (cols.length > DENSE_EIGEN_LIMIT) throw new PencilTooLarge(cols.length);
-  let sigma = firstShift(p, cols);
+  let sigma = start ?? firstShift(p, cols);
   let roots: Roots | null = null;
+  let found = sigma; // the shift `roots` were found with
   for (let pass = 0; pass < 3; pass++) {
     let lam = shiftedEigenvalues(p, cols, sigma);
     for (let retry = 0; !lam && retry < 6; retry++) {
       sigma *= 1.618;
       lam = shiftedEigenvalues(p, cols, sigma);
     }
+    if (!lam && roots) {
+      sigma = found;
+      break;
+    }
     if (!lam) throw new SingularMatrixError(-1);
     roots = toRoots(lam, sigma);
+    found = sigma;
     // roots at or near 0 (an integrator, a series capacitor's zero, and the small circle a multiple
     // root at 0 spreads into) say nothing of the scale
     const all = roots.re.map((re, i) => Math.hypot(re, roots!.im[i]));
@@ -336,6 +346,10 @@ export function pencilEigenvalues(p: SparsePencil): PencilRoots {
     const lo = Math.min(...mags);
     const middle = Math.sqrt(lo * hi);
     if (middle / sigma < 10 && sigma / middle < 10) break;
+    // a shift far from the middle costs accuracy at one end, which polishing at each root restores
+    // where every root is simple or semisimple; another dense eigensolve only where one is not
+    const polished = refineRoots(p, roots);
+    if (polished.polished!.every(Boolean)) return { roots: dropUnconfirmed(polished), shift: sigma };
     sigma = middle * 1.0317; // a little off the middle, so it does not sit on a pole
   }
   return { roots: dropUnconfirmed(refineRoots(p, roots!)), shift: sigma };

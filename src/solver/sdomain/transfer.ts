@@ -4,9 +4,12 @@
  * whole circuit, on the full descriptor (G, C, B): every other independent
  * source zero, every initial value zero.
  *
- * Poles are the finite eigenvalues of the pencil (G, C); zeros are those of
- * the system matrix [[G + sC, −b], [c(s)ᵀ, d]] (H = det of it over det(G + sC),
- * by the Schur complement), whose eigenvalues include every pole the input
+ * Poles are the finite eigenvalues of the pencil (G, C) that H keeps: the
+ * modal form (modal.ts) takes each natural frequency's residue from H itself
+ * and the zeros from a small matrix of that realisation. Where that form does
+ * not apply (an improper H, a multiple pole), the zeros are the eigenvalues of
+ * the system matrix [[G + sC, −b], [c(s)ᵀ, d]] (H = det of it over
+ * det(G + sC), by the Schur complement), which include every pole the input
  * does not reach or the output does not see. Pairs that cancel are removed, so
  * the printed H is minimal; its gain comes from one direct solve at a complex
  * test point, and the factored H is checked against direct solves on the jω
@@ -240,16 +243,6 @@ export function transferFunction(model: GraphModel, inputId: string, output: str
     return { ...base, gain: 0, zeros: [], poles: [], numerator: [], denominator: [], naturalFrequencies, warnings };
   }
 
-  let zerosAll: Roots;
-  let zeroShift: number;
-  try {
-    ({ roots: zerosAll, shift: zeroShift } = pencilEigenvalues(systemPencil(d, bRows, bCoef, out)));
-  } catch (e) {
-    if (e instanceof PencilTooLarge) throw new ModelRefusal(`model: ${e.message}; this model is too large for tf`, [{ kind: 'model' }]);
-    if (e instanceof SingularMatrixError) throw singularRefusal(model);
-    throw e;
-  }
-  const largest = Math.max(largestNatural, scaleOf(zerosAll), 1e-6 * zeroShift);
   // gain from the test point where H is largest relative to its terms (the best conditioned)
   let best = 0;
   for (let t = 1; t < values.length; t++) {
@@ -263,9 +256,24 @@ export function transferFunction(model: GraphModel, inputId: string, output: str
       throw e;
     }
   };
-  const minimal =
-    modalTransfer(natural, zerosAll, probe, largest) ??
-    minimalRoots(zerosAll, natural, largest, probe);
+  // the modal form needs the natural frequencies and H alone; the system matrix's eigenvalues (a second
+  // dense eigensolve of the same order, the costliest step) only where it does not apply
+  let largest = largestNatural;
+  let minimal = modalTransfer(natural, { re: [], im: [] }, probe, largest);
+  if (minimal) largest = Math.max(largest, scaleOf(minimal.zeros));
+  else {
+    let zerosAll: Roots;
+    let zeroShift: number;
+    try {
+      ({ roots: zerosAll, shift: zeroShift } = pencilEigenvalues(systemPencil(d, bRows, bCoef, out), zeroPencilShift(direct, shift, rho)));
+    } catch (e) {
+      if (e instanceof PencilTooLarge) throw new ModelRefusal(`model: ${e.message}; this model is too large for tf`, [{ kind: 'model' }]);
+      if (e instanceof SingularMatrixError) throw singularRefusal(model);
+      throw e;
+    }
+    largest = Math.max(largestNatural, scaleOf(zerosAll), 1e-6 * zeroShift);
+    minimal = modalTransfer(natural, zerosAll, probe, largest) ?? minimalRoots(zerosAll, natural, largest, probe);
+  }
   minimal.zeros = cleanRoots(settleZeroCluster(minimal.zeros, largest), largest);
   const poles = sortRoots(minimal.poles);
   const zeros = sortRoots(minimal.zeros);
@@ -281,6 +289,41 @@ export function transferFunction(model: GraphModel, inputId: string, output: str
   const numerator = monicFromRoots(zeros).map((c) => c * gain + 0);
   const denominator = monicFromRoots(poles).map((c) => c + 0);
   return { ...base, gain, zeros: json(zeros), poles: json(poles), numerator, denominator, naturalFrequencies, warnings };
+}
+
+/**
+ * A real shift for the system matrix M(σ) = [[G + σC, −b], [cᵀ, d]]. Its last
+ * pivot is the Schur complement H(σ), and ‖M(σ)⁻¹‖ grows as 1/|H(σ)|: for a
+ * strictly proper H that falls as σ^−(relative degree) beyond the poles (and,
+ * along a long ladder, as a product over every pole below σ), so a shift that
+ * suits G + σC (a rate typical of the state columns, often far above the
+ * poles) leaves a pivot at rounding level, and the pencil would be taken as
+ * singular at every s, though det M(s) = det(G + sC)·H(s) is not 0. The shift
+ * is taken where |H(σ)| is largest against the terms that make it up, over
+ * the decades about the circuit's own rates (direct solves, cheap beside the
+ * eigensolve).
+ */
+function zeroPencilShift(direct: DirectH, shift: number, rho: number): number {
+  const tried: { sigma: number; ratio: number }[] = [];
+  for (let k = -8; k <= 2; k++) {
+    for (const base of [rho, shift]) {
+      const sigma = base * 10 ** k * 1.0317; // off the decades, so it does not sit on a root
+      let v;
+      try {
+        v = direct.at({ re: sigma, im: 0 });
+      } catch (e) {
+        if (e instanceof SingularMatrixError) continue;
+        throw e;
+      }
+      const ratio = v.size > 0 ? Math.hypot(v.h.re, v.h.im) / v.size : 0;
+      if (Number.isFinite(ratio)) tried.push({ sigma, ratio });
+    }
+  }
+  const top = Math.max(0, ...tried.map((t) => t.ratio));
+  if (!(top > 0)) return rho * 1.0317;
+  // nearest the circuit's typical rate among those within a decade of the best
+  const near = (t: { sigma: number }) => Math.abs(Math.log(t.sigma / rho));
+  return tried.filter((t) => t.ratio >= 0.1 * top).reduce((a, b) => (near(b) < near(a) ? b : a)).sigma;
 }
 
 /** The geometric middle of the roots' magnitudes, those at 0 left out; the shift when none is left. */
