@@ -1,7 +1,8 @@
 /**
  * What a singular phasor system most likely means, for the refusal's one line: an exact resonance of a
  * lossless inductor and capacitor, or windings coupled with k = 1 under ideal voltages. Read only when a
- * factorisation has failed, so it may look at every pair of parts.
+ * factorisation has failed, and after a solve that a k = 1 coupling or an exact resonance may have left
+ * standing only by rounding (so the resonance search is near-linear, not over every pair of parts).
  */
 import type { CapacitorEl, Coupling, GraphModel, InductorEl } from '../../model/graph';
 import { mutualLimit } from '../../model/mutual';
@@ -21,9 +22,22 @@ export function exactResonance(model: GraphModel, frequencyHz: number): Resonanc
   if (!(omega > 0)) return null;
   const ls = model.elements.filter((e): e is InductorEl => isWinding(e));
   const cs = model.elements.filter((e): e is CapacitorEl => e.kind === 'capacitor');
+  // the capacitors sorted by ln C, so that each inductor looks only at those near its resonant
+  // capacitance 1/(ω²·L) (a window in ln C well wider than EXACT), not at every pair: this runs after
+  // every solve of a circuit that has windings and capacitors
+  const byLog = cs.map((c, index) => ({ c, index, log: Math.log(c.farads) })).sort((a, b) => a.log - b.log);
+  const logOmega2 = 2 * Math.log(omega);
   let loose: Resonance | null = null;
   for (const l of ls) {
-    for (const c of cs) {
+    const target = -logOmega2 - Math.log(l.henries);
+    if (!Number.isFinite(target)) continue;
+    let lo = 0;
+    let hi = byLog.length;
+    while (lo < hi) { const mid = (lo + hi) >> 1; if (byLog[mid].log < target - 1e-8) lo = mid + 1; else hi = mid; }
+    const near: typeof byLog = [];
+    for (let j = lo; j < byLog.length && byLog[j].log <= target + 1e-8; j++) near.push(byLog[j]);
+    near.sort((a, b) => a.index - b.index);
+    for (const { c } of near) {
       // ω²·L·C as (ω√L·√C)², so that no product of absurd values overflows first
       const x = omega * Math.sqrt(l.henries) * Math.sqrt(c.farads);
       if (!(Math.abs(x * x - 1) <= EXACT)) continue;
