@@ -5,6 +5,15 @@
  * factor() is two calls (factorColumn before the pivot is chosen, finishColumn after), one of refactor()
  * is one (refactorColumn); both go through updateColumn, the sparse triangular solve of one column.
  *
+ * The first call of a process still costs far more than a warm one (scripts/bench-lu.mjs, ladder of 10,000
+ * unknowns, CPU ms: analyze + factor + solve 161-180 first, 7-10 warm): the engine's own compile work, which
+ * its CPU time includes. A warm-up before the first large analysis (analyze, factor, refactor and solve on a
+ * 12 x 12 grid MNA with branch unknowns, 24 rounds) brought that first factor down to 15-17 ms but cost
+ * 340 ms of its own (228-309 ms for the smaller warm-ups tried: 6 x 6 three rounds, 8 x 8 six), so the first
+ * call grew in every form; nor did the engine's tier-up flags (always-baseline, a smaller interrupt budget)
+ * change it beyond the machine's noise. Hence no warm-up: the kernels stay small so that what compiles is
+ * little and compiles once.
+ *
  * out: [0] running growth max_j lmax2[j] |u_jk|^2 (read and updated), [1] largest candidate |x|^2,
  * [2] |x|^2 at the preferred diagonal row (-1 if not a candidate), [3] the column's scale for the singular
  * test (largest |a_ij|^2 or |u_jk|^2), [4] largest |a_ij|^2.
